@@ -1,0 +1,129 @@
+"""Command line: parses options and hands them to the Python API.  No science here."""
+
+from __future__ import annotations
+
+import argparse
+import sys
+import warnings
+
+from logprep import __version__
+from logprep.blocking import BLOCKING_METHODS
+from logprep.errors import LogprepError
+from logprep.vshale import TRANSFORMS
+
+EXIT_OK, EXIT_SOME_FAILED, EXIT_USAGE = 0, 1, 2
+
+
+def _add_screen_options(p: argparse.ArgumentParser) -> None:
+    from logprep.pipeline import ScreenSettings
+
+    d = ScreenSettings()
+    g = p.add_argument_group("clay volume")
+    g.add_argument("--transform", choices=list(TRANSFORMS), default=d.transform,
+                   help="IGR to Vsh transform (default: %(default)s)")
+    g.add_argument("--gr-clean", default=d.gr_clean, metavar="VALUE|pN",
+                   help="clean-sand GR line: API value or percentile such as p5 (default: %(default)s)")
+    g.add_argument("--gr-shale", default=d.gr_shale, metavar="VALUE|pN",
+                   help="shale GR line: API value or percentile such as p95 (default: %(default)s)")
+    g.add_argument("--gr-curve", default=None, metavar="MNEMONIC",
+                   help="gamma-ray curve to use (default: first of the known GR mnemonics)")
+    g.add_argument("--depth-unit", default=None, choices=["m", "ft"],
+                   help="depth unit when a file does not state one")
+    g = p.add_argument_group("blocking")
+    g.add_argument("--blocking", choices=list(BLOCKING_METHODS), default=d.blocking,
+                   help="blocking method (default: %(default)s)")
+    g.add_argument("--sand-cutoff", type=float, default=d.sand_cutoff, metavar="VSH",
+                   help="Vsh at or below which a sample is sand (default: %(default)s)")
+    g.add_argument("--shale-cutoff", type=float, default=d.shale_cutoff, metavar="VSH",
+                   help="Vsh at or above which a sample is shale (default: %(default)s)")
+    g.add_argument("--min-bed", type=float, default=d.min_bed_m, metavar="M",
+                   help="minimum layer thickness in metres; thinner beds merge (default: %(default)s)")
+    g = p.add_argument_group("fault")
+    g.add_argument("--throw-max", type=float, default=d.throw_max_m, metavar="M",
+                   help="largest throw screened, metres (default: %(default)s)")
+    g.add_argument("--sgr-threshold", type=float, default=d.sgr_threshold_pct, metavar="PCT",
+                   help="SGR (%%) below which a window is flagged on the sheet (default: %(default)s)")
+
+
+def _settings_from_args(args):
+    from logprep.pipeline import ScreenSettings
+
+    return ScreenSettings(
+        transform=args.transform, gr_clean=args.gr_clean, gr_shale=args.gr_shale,
+        sand_cutoff=args.sand_cutoff, shale_cutoff=args.shale_cutoff, min_bed_m=args.min_bed,
+        throw_max_m=args.throw_max, blocking=args.blocking,
+        sgr_threshold_pct=args.sgr_threshold, gr_curve=args.gr_curve,
+        depth_unit=args.depth_unit,
+    )
+
+
+def _progress(stream):
+    """A progress bar on stderr only when it is a terminal (tqdm if installed)."""
+    if not stream.isatty():
+        return None
+    try:
+        from tqdm import tqdm
+    except ImportError:
+        return None
+    return lambda files: tqdm(files, unit="well", file=stream)
+
+
+def cmd_screen(args) -> int:
+    from logprep.batch import screen_paths
+    from logprep.examples import example_logs_dir
+
+    settings = _settings_from_args(args)
+    paths = args.paths or [example_logs_dir()]
+    report = screen_paths(
+        paths, args.out, settings,
+        on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
+        progress=_progress(sys.stderr),
+    )
+    ok = len(report.rows) - len(report.failures)
+    print(f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed; "
+          f"results in {args.out}, summary {report.summary_path}")
+    return EXIT_SOME_FAILED if report.failures else EXIT_OK
+
+
+def build_parser() -> argparse.ArgumentParser:
+    parser = argparse.ArgumentParser(
+        prog="logprep",
+        description="Fault-seal screening from well logs: LAS -> Vshale -> layers -> "
+                    "juxtaposition and SGR -> per-well sheets and tables.",
+    )
+    parser.add_argument("--version", action="version", version=f"logprep {__version__}")
+    sub = parser.add_subparsers(dest="command", metavar="COMMAND")
+    p = sub.add_parser(
+        "screen", help="screen LAS files (default: the bundled example logs)",
+        description="Screen every LAS file under PATHS (files or folders, searched "
+                    "recursively) and write one folder of results per file under --out.",
+    )
+    p.add_argument("paths", nargs="*", metavar="PATH",
+                   help="LAS files or folders (default: the bundled example logs)")
+    p.add_argument("--out", default="screening", metavar="DIR",
+                   help="output folder (default: ./%(default)s)")
+    _add_screen_options(p)
+    p.set_defaults(func=cmd_screen)
+    return parser
+
+
+def main(argv: list[str] | None = None) -> int:
+    parser = build_parser()
+    args = parser.parse_args(argv)
+    if not getattr(args, "func", None):
+        parser.print_help(sys.stderr)
+        return EXIT_USAGE
+    try:
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore", RuntimeWarning)
+            return args.func(args)
+    except LogprepError as exc:
+        print(f"logprep: error: {exc}", file=sys.stderr)
+        return EXIT_USAGE
+    except KeyboardInterrupt:
+        print("logprep: interrupted; files already written are complete", file=sys.stderr)
+        return 130
+
+
+if __name__ == "__main__":  # pragma: no cover
+    sys.exit(main())

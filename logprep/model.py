@@ -1,0 +1,130 @@
+"""The small frozen data model shared by every stage.
+
+Depths are metres, positive down, measured as in the file (MD unless the file says
+otherwise); feet become metres once, in :mod:`logprep.lasread`.  Arrays stored on these
+objects are made read-only so a stage cannot change another stage's input by accident.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from types import MappingProxyType
+from typing import Mapping
+
+import numpy as np
+import pandas as pd
+
+LITHOLOGIES = ("sand", "heterolith", "shale")
+"""Layer classes, from clean to clay-rich.  Their index is the lithology code."""
+
+
+def _frozen(a) -> np.ndarray:
+    arr = np.array(a, dtype=float, copy=True)
+    arr.setflags(write=False)
+    return arr
+
+
+@dataclass(frozen=True)
+class WellLog:
+    """One well's logs as read, with provenance.
+
+    Attributes
+    ----------
+    name : str
+        Well name from the LAS ``WELL`` header item (file stem when blank).
+    source : str
+        Path of the file as given.
+    sha256 : str
+        Hex digest of the file bytes.
+    depth_m : ndarray
+        Depth index in metres, strictly increasing.
+    curves : mapping of str to ndarray
+        Every curve except the index, by mnemonic as read, NaN where missing.
+    units : mapping of str to str
+        Curve units as read (before any conversion), by mnemonic.
+    depth_unit : str
+        Unit of the depth index as read (``M``, ``FT``, ...).
+    gr_mnemonic : str
+        The curve used as gamma ray.
+    header : mapping of str to str
+        ``~Well`` and ``~Parameter`` items (mnemonic -> value as text).
+    """
+
+    name: str
+    source: str
+    sha256: str
+    depth_m: np.ndarray
+    curves: Mapping[str, np.ndarray]
+    units: Mapping[str, str]
+    depth_unit: str
+    gr_mnemonic: str
+    header: Mapping[str, str] = field(default_factory=dict)
+
+    def __post_init__(self) -> None:
+        object.__setattr__(self, "depth_m", _frozen(self.depth_m))
+        object.__setattr__(
+            self, "curves", MappingProxyType({k: _frozen(v) for k, v in self.curves.items()})
+        )
+        object.__setattr__(self, "units", MappingProxyType(dict(self.units)))
+        object.__setattr__(self, "header", MappingProxyType(dict(self.header)))
+
+    @property
+    def gr_api(self) -> np.ndarray:
+        """The gamma-ray curve (API units as read)."""
+        return self.curves[self.gr_mnemonic]
+
+
+@dataclass(frozen=True)
+class Layers:
+    """A blocked stratigraphic column: contiguous layers, top down.
+
+    ``top_m[i+1] == base_m[i]``; ``vsh`` is the thickness-weighted mean clay volume of each
+    layer (fraction 0-1); ``lithology`` holds names from :data:`LITHOLOGIES`.
+    ``filled_fraction`` is the share of each layer's thickness whose Vsh was interpolated
+    across missing samples (0 where every sample was measured).
+    """
+
+    top_m: np.ndarray
+    base_m: np.ndarray
+    vsh: np.ndarray
+    lithology: tuple[str, ...]
+    filled_fraction: np.ndarray | None = None
+
+    def __post_init__(self) -> None:
+        object.__setattr__(self, "top_m", _frozen(self.top_m))
+        object.__setattr__(self, "base_m", _frozen(self.base_m))
+        object.__setattr__(self, "vsh", _frozen(self.vsh))
+        object.__setattr__(self, "lithology", tuple(self.lithology))
+        ff = np.zeros(len(self.top_m)) if self.filled_fraction is None else self.filled_fraction
+        object.__setattr__(self, "filled_fraction", _frozen(ff))
+        n = len(self.top_m)
+        if not (len(self.base_m) == len(self.vsh) == len(self.lithology) == n):
+            raise ValueError("Layers: arrays must have one entry per layer")
+        bad = set(self.lithology) - set(LITHOLOGIES)
+        if bad:
+            raise ValueError(f"Layers: unknown lithology {sorted(bad)}; use {LITHOLOGIES}")
+
+    def __len__(self) -> int:
+        return len(self.top_m)
+
+    @property
+    def thickness_m(self) -> np.ndarray:
+        return self.base_m - self.top_m
+
+    @property
+    def lithology_code(self) -> np.ndarray:
+        """Lithology as integers: index into :data:`LITHOLOGIES`."""
+        return np.array([LITHOLOGIES.index(x) for x in self.lithology], dtype=np.int8)
+
+    def to_frame(self) -> pd.DataFrame:
+        """The ``layers.csv`` table."""
+        return pd.DataFrame(
+            {
+                "top_m": self.top_m,
+                "base_m": self.base_m,
+                "thickness_m": self.thickness_m,
+                "vsh": self.vsh,
+                "lithology": list(self.lithology),
+                "filled_fraction": self.filled_fraction,
+            }
+        )

@@ -1,0 +1,103 @@
+"""Writing results: every file is written to a temporary name and moved into place, so an
+interrupted run never leaves a half-written file and earlier results stay until replaced."""
+
+from __future__ import annotations
+
+import io
+import os
+import re
+import tempfile
+from pathlib import Path
+
+import pandas as pd
+from matplotlib.backends.backend_agg import FigureCanvasAgg
+from matplotlib.backends.backend_pdf import PdfPages
+
+from logprep.errors import OutputError
+from logprep.juxtaposition import WINDOW_COLUMNS
+
+SUMMARY_COLUMNS = ["well", "source", "status", "message", "layers", "sand_sand_windows",
+                   "min_window_sgr_pct", "folder"]
+
+
+def write_bytes_atomic(path: Path, data: bytes) -> None:
+    """Write ``data`` to ``path`` through a temporary file in the same folder."""
+    path = Path(path)
+    try:
+        path.parent.mkdir(parents=True, exist_ok=True)
+        fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=path.parent)
+        try:
+            with os.fdopen(fd, "wb") as f:
+                f.write(data)
+            os.replace(tmp, path)
+        except BaseException:
+            Path(tmp).unlink(missing_ok=True)
+            raise
+    except OSError as exc:
+        raise OutputError(f"{path}: cannot write ({exc.strerror or exc})") from exc
+
+
+def csv_bytes(frame: pd.DataFrame) -> bytes:
+    return frame.to_csv(index=False, float_format="%.10g", lineterminator="\n").encode()
+
+
+def pdf_bytes(figures) -> bytes:
+    buf = io.BytesIO()
+    with PdfPages(buf, metadata={"Creator": "logprep", "Title": "fault-seal screening sheet"}) as pdf:
+        for fig in figures:
+            FigureCanvasAgg(fig)
+            pdf.savefig(fig)
+    return buf.getvalue()
+
+
+def png_bytes(figure, dpi: int = 110) -> bytes:
+    buf = io.BytesIO()
+    FigureCanvasAgg(figure)
+    figure.savefig(buf, format="png", dpi=dpi)
+    return buf.getvalue()
+
+
+_UNSAFE = re.compile(r"[^A-Za-z0-9._-]+")
+
+
+def folder_name(source: str | Path, taken: set[str]) -> str:
+    """A safe, unique folder name from a file stem: unsafe characters become ``_``,
+    leading dots are dropped, and ``-2``, ``-3``... make it unique among ``taken``
+    (compared case-insensitively).  The name is added to ``taken``."""
+    base = _UNSAFE.sub("_", Path(source).stem).lstrip(".") or "well"
+    name, k = base, 2
+    while name.lower() in taken or name.lower() == "summary.csv":
+        name, k = f"{base}-{k}", k + 1
+    taken.add(name.lower())
+    return name
+
+
+def well_tables(result) -> dict[str, pd.DataFrame]:
+    """The machine-readable tables of one well, by file name."""
+    windows = result.windows.copy()
+    extra = [c for c in windows.columns if c not in WINDOW_COLUMNS]
+    return {
+        "layers.csv": result.layers.to_frame(),
+        "juxtapositions.csv": windows[WINDOW_COLUMNS + extra],
+    }
+
+
+def render_well(result, sheet_builder) -> dict[str, bytes]:
+    """Every output file of one well as bytes, rendered in memory first so that a failure
+    while drawing leaves nothing half-written."""
+    files = {name: csv_bytes(frame) for name, frame in well_tables(result).items()}
+    pages = sheet_builder(result)
+    files["sheet.pdf"] = pdf_bytes(pages)
+    files["sheet.png"] = png_bytes(pages[0])
+    return files
+
+
+def write_well(files: dict[str, bytes], well_dir: Path) -> None:
+    for name, data in files.items():
+        write_bytes_atomic(Path(well_dir) / name, data)
+
+
+def write_summary(rows: list[dict], out_dir: Path) -> Path:
+    path = Path(out_dir) / "summary.csv"
+    write_bytes_atomic(path, csv_bytes(pd.DataFrame(rows, columns=SUMMARY_COLUMNS)))
+    return path
