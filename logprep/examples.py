@@ -7,5 +7,12 @@ from pathlib import Path
 
 
 def example_logs_dir() -> Path:
-    """Folder of the bundled example LAS files (and their tops table)."""
-    return Path(str(resources.files("logprep.example_logs")))
+    """Folder of the bundled example LAS files (and their tops table).
+
+    Installed, they are the package data ``logprep.example_logs``; in a source checkout
+    imported without installing, the ``example_logs/`` folder beside the package.
+    """
+    try:
+        return Path(str(resources.files("logprep.example_logs")))
+    except ModuleNotFoundError:
+        return Path(__file__).resolve().parents[1] / "example_logs"

@@ -135,3 +135,13 @@ def test_console_script_version_and_default_run(tmp_path):
     assert r.returncode == 0, r.stderr
     assert (tmp_path / "screening" / "summary.csv").exists()
     assert len(list((tmp_path / "screening").glob("*/sheet.pdf"))) >= 4
+
+
+def test_readme_test_command_is_what_ci_runs():
+    from conftest import REPO
+
+    readme = (REPO / "README.md").read_text()
+    ci = (REPO / ".ci" / "run").read_text()
+    cmd = "python3 -m venv .venv && . .venv/bin/activate && pip install '.[test]' && pytest"
+    assert cmd in readme and cmd in ci
+    assert "&& logprep screen" in readme
