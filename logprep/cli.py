@@ -14,47 +14,67 @@ from logprep.vshale import TRANSFORMS
 EXIT_OK, EXIT_SOME_FAILED, EXIT_USAGE = 0, 1, 2
 
 
+def _clay_options(p: argparse.ArgumentParser, d) -> None:
+    g = p.add_argument_group("clay volume")
+    g.add_argument("--transform", dest="transform", choices=list(TRANSFORMS),
+                   help=f"IGR to Vsh transform (default: {d.transform})")
+    g.add_argument("--gr-clean", dest="gr_clean", metavar="VALUE|pN",
+                   help=f"clean-sand GR line: API value or percentile such as p5 (default: {d.gr_clean})")
+    g.add_argument("--gr-shale", dest="gr_shale", metavar="VALUE|pN",
+                   help=f"shale GR line: API value or percentile such as p95 (default: {d.gr_shale})")
+    g.add_argument("--gr-curve", dest="gr_curve", metavar="MNEMONIC",
+                   help="gamma-ray curve to use (default: first of the known GR mnemonics)")
+    g.add_argument("--depth-unit", dest="depth_unit", choices=["m", "ft"],
+                   help="depth unit when a file does not state one")
+
+
+def _blocking_options(p: argparse.ArgumentParser, d) -> None:
+    g = p.add_argument_group("blocking")
+    g.add_argument("--blocking", dest="blocking", choices=list(BLOCKING_METHODS),
+                   help=f"blocking method (default: {d.blocking})")
+    g.add_argument("--sand-cutoff", dest="sand_cutoff", type=float, metavar="VSH",
+                   help=f"Vsh at or below which a sample is sand (default: {d.sand_cutoff})")
+    g.add_argument("--shale-cutoff", dest="shale_cutoff", type=float, metavar="VSH",
+                   help=f"Vsh at or above which a sample is shale (default: {d.shale_cutoff})")
+    g.add_argument("--min-bed", dest="min_bed_m", type=float, metavar="M",
+                   help=f"minimum layer thickness in metres; thinner beds merge (default: {d.min_bed_m})")
+
+
+def _fault_options(p: argparse.ArgumentParser, d) -> None:
+    g = p.add_argument_group("fault")
+    g.add_argument("--throw-max", dest="throw_max_m", type=float, metavar="M",
+                   help=f"largest throw screened, metres (default: {d.throw_max_m})")
+    g.add_argument("--sgr-threshold", dest="sgr_threshold_pct", type=float, metavar="PCT",
+                   help=f"SGR (%%) below which a window is flagged (default: {d.sgr_threshold_pct})")
+
+
+SETTINGS_OPTION_GROUPS = [_clay_options, _blocking_options, _fault_options]
+"""Each adds one group of options whose ``dest`` is a :class:`ScreenSettings` field and
+whose default is None (not given); add a function here for a new group."""
+
+
 def _add_screen_options(p: argparse.ArgumentParser) -> None:
     from logprep.pipeline import ScreenSettings
 
     d = ScreenSettings()
-    g = p.add_argument_group("clay volume")
-    g.add_argument("--transform", choices=list(TRANSFORMS), default=d.transform,
-                   help="IGR to Vsh transform (default: %(default)s)")
-    g.add_argument("--gr-clean", default=d.gr_clean, metavar="VALUE|pN",
-                   help="clean-sand GR line: API value or percentile such as p5 (default: %(default)s)")
-    g.add_argument("--gr-shale", default=d.gr_shale, metavar="VALUE|pN",
-                   help="shale GR line: API value or percentile such as p95 (default: %(default)s)")
-    g.add_argument("--gr-curve", default=None, metavar="MNEMONIC",
-                   help="gamma-ray curve to use (default: first of the known GR mnemonics)")
-    g.add_argument("--depth-unit", default=None, choices=["m", "ft"],
-                   help="depth unit when a file does not state one")
-    g = p.add_argument_group("blocking")
-    g.add_argument("--blocking", choices=list(BLOCKING_METHODS), default=d.blocking,
-                   help="blocking method (default: %(default)s)")
-    g.add_argument("--sand-cutoff", type=float, default=d.sand_cutoff, metavar="VSH",
-                   help="Vsh at or below which a sample is sand (default: %(default)s)")
-    g.add_argument("--shale-cutoff", type=float, default=d.shale_cutoff, metavar="VSH",
-                   help="Vsh at or above which a sample is shale (default: %(default)s)")
-    g.add_argument("--min-bed", type=float, default=d.min_bed_m, metavar="M",
-                   help="minimum layer thickness in metres; thinner beds merge (default: %(default)s)")
-    g = p.add_argument_group("fault")
-    g.add_argument("--throw-max", type=float, default=d.throw_max_m, metavar="M",
-                   help="largest throw screened, metres (default: %(default)s)")
-    g.add_argument("--sgr-threshold", type=float, default=d.sgr_threshold_pct, metavar="PCT",
-                   help="SGR (%%) below which a window is flagged on the sheet (default: %(default)s)")
+    for add_group in SETTINGS_OPTION_GROUPS:
+        add_group(p, d)
+
+
+def _given_settings(args) -> dict:
+    """The :class:`ScreenSettings` fields given on the command line."""
+    from dataclasses import fields
+
+    from logprep.pipeline import ScreenSettings
+
+    names = {f.name for f in fields(ScreenSettings)}
+    return {k: v for k, v in vars(args).items() if k in names and v is not None}
 
 
 def _settings_from_args(args):
     from logprep.pipeline import ScreenSettings
 
-    return ScreenSettings(
-        transform=args.transform, gr_clean=args.gr_clean, gr_shale=args.gr_shale,
-        sand_cutoff=args.sand_cutoff, shale_cutoff=args.shale_cutoff, min_bed_m=args.min_bed,
-        throw_max_m=args.throw_max, blocking=args.blocking,
-        sgr_threshold_pct=args.sgr_threshold, gr_curve=args.gr_curve,
-        depth_unit=args.depth_unit,
-    )
+    return ScreenSettings(**_given_settings(args))
 
 
 def _progress(stream):

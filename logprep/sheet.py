@@ -1,10 +1,17 @@
 """The per-well screening sheet: builds matplotlib Figures, never saves or shows them.
 
+Page 1 is assembled from panel functions (``draw_*``), each drawing one axes from a
+:class:`~logprep.pipeline.WellScreening`; later pages come from the functions in
+:data:`EXTRA_PAGES`, each returning a list of Figures.  To add a page, append a function
+there; to change a panel, edit its ``draw_*`` function only.
+
 Colours come from the colour-blind-safe palette of Okabe & Ito (2008, "Color Universal
 Design"), with neutral greys for shale.  The layout is logprep's own.
 """
 
 from __future__ import annotations
+
+from typing import Callable
 
 import numpy as np
 from matplotlib.colors import BoundaryNorm, ListedColormap
@@ -18,59 +25,152 @@ from logprep.juxtaposition import JUXTAPOSITION_CLASSES
 LITHOLOGY_COLOURS = {"sand": "#F0E442", "heterolith": "#E69F00", "shale": "#8C8C8C"}
 CLASS_COLOURS = {
     0: "#FFFFFF",
-    1: "#D55E00",  # sand/sand: the windows that can leak across the fault
-    2: "#E69F00",
+    1: "#D55E00",  # sand/sand: where the sands can communicate across the fault
+    2: "#F5B47A",
     3: "#56B4E9",
-    4: "#F0E442",
+    4: "#CC79A7",
     5: "#009E73",
-    6: "#C8C8C8",
+    6: "#D9D9D9",
 }
 SGR_CONTOURS_PCT = (10, 20, 30, 40, 60)
 PAGE_SIZE_IN = (16.5, 11.7)  # A3 landscape
-ROWS_PAGE1 = 18
-ROWS_PER_PAGE = 40
+ROWS_PAGE1 = 22
+ROWS_PER_PAGE = 45
+INK = "#222222"
 
 
-def _window_rows(windows, threshold_pct):
+# ----------------------------------------------------------------------------- panels
+def draw_gr_track(ax, result) -> None:
+    """GR with the clean and shale lines used."""
+    ax.plot(result.gr_api, result.depth_m, color=INK, lw=0.6)
+    ax.axvline(result.gr_clean_api, color="#0072B2", ls="--", lw=1,
+               label=f"clean {result.gr_clean_api:.0f}")
+    ax.axvline(result.gr_shale_api, color="#D55E00", ls="--", lw=1,
+               label=f"shale {result.gr_shale_api:.0f}")
+    ax.set_xlabel(f"GR ({result.well.gr_mnemonic}), API")
+    ax.set_ylabel("Depth (m, as logged)")
+    ax.legend(loc="lower left", fontsize=6.5, framealpha=0.9)
+    L = result.layers
+    ax.set_ylim(L.base_m[-1], L.top_m[0])
+
+
+def draw_vsh_track(ax, result) -> None:
+    """Vsh per sample, the blocked Vsh, the cut-offs, and interpolated stretches."""
+    L, s = result.layers, result.settings
+    ax.plot(result.vsh, result.depth_m, color="#777777", lw=0.5, label="Vsh")
+    z = np.column_stack([L.top_m, L.base_m]).ravel()
+    ax.plot(np.repeat(L.vsh, 2), z, color="#0072B2", lw=1.2, label="blocked")
+    for cut in (s.sand_cutoff, s.shale_cutoff):
+        ax.axvline(cut, color="#999999", lw=0.8, ls=":")
+    if result.filled.any():
+        ax.plot(np.where(result.filled, result.vsh, np.nan), result.depth_m, color="#CC79A7",
+                lw=2.5, label="interpolated")
+    ax.set_xlim(0, 1)
+    ax.set_xlabel(f"Vsh ({s.transform})")
+    ax.legend(loc="lower left", fontsize=6.5, framealpha=0.9)
+    ax.tick_params(labelleft=False)
+
+
+def draw_layer_track(ax, result) -> None:
+    """The blocked column coloured by lithology."""
+    L = result.layers
+    for top, base, lith in zip(L.top_m, L.base_m, L.lithology):
+        ax.axhspan(top, base, color=LITHOLOGY_COLOURS[lith], lw=0)
+    ax.set_xticks([])
+    ax.set_xlabel("Layers")
+    ax.tick_params(labelleft=False)
+
+
+def _window_label_point(w):
+    tmid = 0.5 * (w.throw_min_m + w.throw_max_m)
+    zmid = 0.5 * (max(w.footwall_top_m, w.hangingwall_top_m + tmid)
+                  + min(w.footwall_base_m, w.hangingwall_base_m + tmid))
+    return tmid, zmid
+
+
+def draw_triangle(ax, result, labelled=()) -> None:
+    """Triangle diagram: footwall depth against throw, coloured by juxtaposition class,
+    SGR contours, and the window numbers in ``labelled`` (row numbers from 1)."""
+    depth, throw, sgr, jux = result.grids()
+    cmap = ListedColormap([CLASS_COLOURS[k] for k in sorted(CLASS_COLOURS)])
+    norm = BoundaryNorm(np.arange(-0.5, len(CLASS_COLOURS)), cmap.N)
+    ax.pcolormesh(throw, depth, jux, cmap=cmap, norm=norm, shading="nearest", rasterized=True)
+    cs = ax.contour(throw, depth, sgr, levels=SGR_CONTOURS_PCT, colors=INK, linewidths=0.6)
+    ax.clabel(cs, fmt="SGR %d%%", fontsize=6)
+    ax.set_xlim(0, result.settings.throw_max_m)
+    ax.set_xlabel("Throw (m); normal fault, hanging wall down")
+    ax.set_title("Triangle diagram: juxtaposition class, SGR contours, numbered sand-sand windows",
+                 fontsize=9, loc="left")
+    ax.tick_params(labelleft=False)
+    rows = result.windows
+    for k in labelled:
+        tmid, zmid = _window_label_point(rows.iloc[k - 1])
+        ax.text(tmid, zmid, str(k), fontsize=6.5, ha="center", va="center",
+                bbox=dict(boxstyle="round,pad=0.15", fc="white", ec="#D55E00", lw=0.6))
+
+
+def draw_legend(ax, result) -> None:
+    """Class and lithology keys and a one-paragraph summary of the well."""
+    ax.set_axis_off()
+    handles = [Patch(facecolor=CLASS_COLOURS[k], edgecolor="#666666", label=JUXTAPOSITION_CLASSES[k])
+               for k in sorted(CLASS_COLOURS) if k != 0]
+    handles += [Patch(facecolor=c, edgecolor="#666666", label=f"layer: {n}")
+                for n, c in LITHOLOGY_COLOURS.items()]
+    ax.legend(handles=handles, loc="upper left", ncol=2, fontsize=8, frameon=False,
+              title="Juxtaposition (footwall/hanging wall) and layers", title_fontsize=9)
+    L = result.layers
+    sand = np.array(L.lithology) == "sand"
+    cross = result.windows[~result.windows["self_juxtaposed"]]
+    low = cross[cross["sgr_min_pct"] < result.settings.sgr_threshold_pct]
+    lines = [
+        f"{len(L)} layers, {int(sand.sum())} sands, net-to-gross "
+        f"{L.thickness_m[sand].sum() / L.thickness_m.sum():.2f}",
+        f"{len(cross)} windows between different sands within throws 0-"
+        f"{result.settings.throw_max_m:g} m",
+        f"{len(low)} reach SGR below {result.settings.sgr_threshold_pct:g} %; "
+        f"lowest window SGR {result.min_window_sgr_pct:.1f} %",
+    ]
+    ax.text(0, 0.0, "\n".join(lines), fontsize=8.5, va="bottom")
+
+
+TABLE_HEAD = ["#", "footwall sand\ntop-base (m)", "hanging-wall sand\ntop-base (m)",
+              "throw\nrange (m)", "SGR\nmin %", "SGR\nmax %", "note"]
+
+
+def window_rows(windows, numbers, threshold_pct) -> list[list[str]]:
+    """Table rows for the windows with the given row numbers (from 1)."""
     rows = []
-    for k, w in enumerate(windows.itertuples(index=False), start=1):
-        low = w.sgr_min_pct < threshold_pct and not w.self_juxtaposed
-        rows.append([
-            str(k),
-            f"{w.footwall_top_m:.1f}-{w.footwall_base_m:.1f}",
-            f"{w.hangingwall_top_m:.1f}-{w.hangingwall_base_m:.1f}",
-            f"{w.throw_min_m:.1f}-{w.throw_max_m:.1f}",
-            f"{w.sgr_min_pct:.1f}",
-            f"{w.sgr_max_pct:.1f}",
-            "same sand" if w.self_juxtaposed else ("below threshold" if low else ""),
-        ])
+    for k in numbers:
+        w = windows.iloc[k - 1]
+        note = "sand against itself" if w.self_juxtaposed else (
+            f"SGR < {threshold_pct:g} %" if w.sgr_min_pct < threshold_pct else "")
+        rows.append([str(k), f"{w.footwall_top_m:.1f}-{w.footwall_base_m:.1f}",
+                     f"{w.hangingwall_top_m:.1f}-{w.hangingwall_base_m:.1f}",
+                     f"{w.throw_min_m:.1f}-{w.throw_max_m:.1f}", f"{w.sgr_min_pct:.1f}",
+                     f"{w.sgr_max_pct:.1f}", note])
     return rows
 
 
-_TABLE_HEAD = ["#", "footwall sand (m)", "hanging-wall sand (m)", "throw (m)",
-               "SGR min %", "SGR max %", "note"]
-
-
-def _draw_table(ax, rows, title):
+def draw_window_table(ax, rows, title) -> None:
     ax.set_axis_off()
-    ax.set_title(title, loc="left", fontsize=10, fontweight="bold")
+    ax.set_title(title, loc="left", fontsize=9, fontweight="bold")
     if not rows:
-        ax.text(0, 0.95, "No sand-sand windows within the screened throws.", va="top", fontsize=9)
+        ax.text(0, 0.95, "No sand-sand windows between different sands.", va="top", fontsize=9)
         return
-    table = ax.table(cellText=rows, colLabels=_TABLE_HEAD, loc="upper left", cellLoc="center",
-                     colWidths=[0.05, 0.19, 0.19, 0.14, 0.1, 0.1, 0.2])
+    table = ax.table(cellText=rows, colLabels=TABLE_HEAD, loc="upper left", cellLoc="center",
+                     colWidths=[0.06, 0.19, 0.19, 0.15, 0.09, 0.09, 0.2])
     table.auto_set_font_size(False)
     table.set_fontsize(7.5)
-    table.scale(1.0, 1.15)
     for (r, _c), cell in table.get_celld().items():
         cell.set_edgecolor("#BBBBBB")
+        cell.set_height(0.042 if r == 0 else 0.026)
         if r == 0:
             cell.set_facecolor("#EEEEEE")
 
 
-def _footer(fig, result):
-    s = result.settings
-    w = result.well
+def draw_footer(fig, result) -> None:
+    """Provenance, settings, notes and the caution, along the foot of a page."""
+    s, w = result.settings, result.well
     prov = (
         f"Source: {w.source}   sha256 {w.sha256[:16]}...   WELL '{w.name}'   depth unit as read: "
         f"{w.depth_unit}   GR curve: {w.gr_mnemonic}   logprep {__version__}\n"
@@ -81,109 +181,76 @@ def _footer(fig, result):
     )
     if result.notes:
         prov += "\nNotes: " + "; ".join(result.notes)
-    fig.text(0.015, 0.058, prov, fontsize=7, va="bottom", family="monospace", wrap=True)
+    fig.text(0.015, 0.058, prov, fontsize=7, va="bottom", family="monospace")
     fig.text(0.015, 0.012, "CAUTION: " + CAUTION, fontsize=8, va="bottom", wrap=True,
              color="#7A1F00", bbox=dict(facecolor="#FFF4E5", edgecolor="#D55E00", pad=4))
 
 
-def build_sheet(result) -> list[Figure]:
-    """The screening sheet for one :class:`~logprep.pipeline.WellScreening`: page 1 with
-    the log tracks, the triangle diagram and the first windows; more pages when the window
-    table is long."""
+# ----------------------------------------------------------------------------- pages
+def riskiest_windows(result, n: int) -> list[int]:
+    """Row numbers (from 1) of up to ``n`` windows between different sands, lowest
+    minimum SGR first."""
+    w = result.windows
+    cross = w[~w["self_juxtaposed"]].sort_values("sgr_min_pct", kind="stable")
+    return [int(i) + 1 for i in cross.index[:n]]
+
+
+def overview_page(result) -> Figure:
     fig = Figure(figsize=PAGE_SIZE_IN)
-    fig.suptitle(f"Fault-seal screening sheet: {result.well.name}", x=0.015, ha="left",
-                 fontsize=15, fontweight="bold")
+    fig.suptitle(f"Fault-seal screening: {result.well.name}", x=0.015, ha="left", fontsize=15,
+                 fontweight="bold")
     gs = fig.add_gridspec(1, 5, left=0.045, right=0.985, top=0.92, bottom=0.17,
                           width_ratios=[1.0, 1.0, 0.45, 4.2, 3.6], wspace=0.08)
     ax_gr = fig.add_subplot(gs[0])
     ax_vsh = fig.add_subplot(gs[1], sharey=ax_gr)
     ax_lith = fig.add_subplot(gs[2], sharey=ax_gr)
     ax_tri = fig.add_subplot(gs[3], sharey=ax_gr)
-    right = gs[4].subgridspec(2, 1, height_ratios=[1.0, 2.6], hspace=0.15)
-    ax_leg = fig.add_subplot(right[0])
-    ax_tab = fig.add_subplot(right[1])
+    right = gs[4].subgridspec(2, 1, height_ratios=[1.0, 2.7], hspace=0.12)
+    numbers = riskiest_windows(result, ROWS_PAGE1)
+    draw_gr_track(ax_gr, result)
+    draw_vsh_track(ax_vsh, result)
+    draw_layer_track(ax_lith, result)
+    draw_triangle(ax_tri, result, labelled=numbers)
+    draw_legend(fig.add_subplot(right[0]), result)
+    n_cross = int((~result.windows["self_juxtaposed"]).sum())
+    title = "Sand-sand windows, lowest SGR first"
+    if n_cross > len(numbers):
+        title += f" ({len(numbers)} of {n_cross}; all in the table overleaf)"
+    draw_window_table(fig.add_subplot(right[1]),
+                      window_rows(result.windows, numbers, result.settings.sgr_threshold_pct),
+                      title)
+    draw_footer(fig, result)
+    return fig
 
-    d, L = result.depth_m, result.layers
-    ax_gr.plot(result.gr_api, d, color="#222222", lw=0.6)
-    ax_gr.axvline(result.gr_clean_api, color="#0072B2", ls="--", lw=1, label="clean line")
-    ax_gr.axvline(result.gr_shale_api, color="#D55E00", ls="--", lw=1, label="shale line")
-    ax_gr.set_xlabel(f"GR ({result.well.gr_mnemonic}), API")
-    ax_gr.set_ylabel("Depth (m, as logged)")
-    ax_gr.legend(loc="lower left", fontsize=6.5, framealpha=0.9)
-    ax_gr.set_ylim(L.base_m[-1], L.top_m[0])
 
-    ax_vsh.plot(result.vsh, d, color="#444444", lw=0.5, label="Vsh")
-    step_z = np.repeat(np.column_stack([L.top_m, L.base_m]).ravel(), 1)
-    step_v = np.repeat(L.vsh, 2)
-    ax_vsh.plot(step_v, step_z, color="#0072B2", lw=1.2, label="blocked")
-    for cut in (result.settings.sand_cutoff, result.settings.shale_cutoff):
-        ax_vsh.axvline(cut, color="#999999", lw=0.8, ls=":")
-    if result.filled.any():
-        ax_vsh.plot(np.where(result.filled, result.vsh, np.nan), d, color="#CC79A7", lw=2,
-                    label="interpolated")
-    ax_vsh.set_xlim(0, 1)
-    ax_vsh.set_xlabel(f"Vsh ({result.settings.transform})")
-    ax_vsh.legend(loc="lower left", fontsize=6.5, framealpha=0.9)
-    ax_vsh.tick_params(labelleft=False)
-
-    for top, base, lith in zip(L.top_m, L.base_m, L.lithology):
-        ax_lith.axhspan(top, base, color=LITHOLOGY_COLOURS[lith], lw=0)
-    ax_lith.set_xticks([])
-    ax_lith.set_xlabel("Layers")
-    ax_lith.tick_params(labelleft=False)
-
-    depth, throw, sgr, jux = result.grids()
-    cmap = ListedColormap([CLASS_COLOURS[k] for k in sorted(CLASS_COLOURS)])
-    norm = BoundaryNorm(np.arange(-0.5, len(CLASS_COLOURS)), cmap.N)
-    ax_tri.pcolormesh(throw, depth, jux, cmap=cmap, norm=norm, shading="nearest",
-                      rasterized=True)
-    cs = ax_tri.contour(throw, depth, np.where(np.isfinite(sgr), sgr, np.nan),
-                        levels=SGR_CONTOURS_PCT, colors="#111111", linewidths=0.6)
-    ax_tri.clabel(cs, fmt="%d%%", fontsize=6.5)
-    ax_tri.set_xlim(0, result.settings.throw_max_m)
-    ax_tri.set_xlabel("Throw (m), normal fault, hanging wall down")
-    ax_tri.set_title("Triangle diagram: footwall depth vs throw; juxtaposition class, SGR contours",
-                     fontsize=9, loc="left")
-    ax_tri.tick_params(labelleft=False)
-    for k, w in enumerate(result.windows.itertuples(index=False), start=1):
-        if w.self_juxtaposed:
-            continue
-        tmid = 0.5 * (w.throw_min_m + w.throw_max_m)
-        zmid = 0.5 * (max(w.footwall_top_m, w.hangingwall_top_m + tmid)
-                      + min(w.footwall_base_m, w.hangingwall_base_m + tmid))
-        ax_tri.text(tmid, zmid, str(k), fontsize=6.5, ha="center", va="center",
-                    bbox=dict(boxstyle="round,pad=0.15", fc="white", ec="#D55E00", lw=0.6))
-
-    ax_leg.set_axis_off()
-    handles = [Patch(facecolor=CLASS_COLOURS[k], edgecolor="#666666", label=JUXTAPOSITION_CLASSES[k])
-               for k in sorted(CLASS_COLOURS) if k != 0]
-    handles += [Patch(facecolor=c, edgecolor="#666666", label=f"layer: {n}")
-                for n, c in LITHOLOGY_COLOURS.items()]
-    ax_leg.legend(handles=handles, loc="upper left", ncol=2, fontsize=8, frameon=False,
-                  title="Footwall / hanging-wall lithology", title_fontsize=9)
-    n_sand = sum(1 for x in L.lithology if x == "sand")
-    cross = result.windows[~result.windows["self_juxtaposed"]]
-    summary = (f"{len(L)} layers, {n_sand} sands, net-to-gross "
-               f"{L.thickness_m[np.array(L.lithology) == 'sand'].sum() / L.thickness_m.sum():.2f}; "
-               f"{len(cross)} sand-sand windows between different sands; "
-               f"lowest window SGR {result.min_window_sgr_pct:.1f} %")
-    ax_leg.text(0, 0.02, summary, fontsize=8.5, va="bottom", wrap=True)
-
-    rows = _window_rows(result.windows, result.settings.sgr_threshold_pct)
-    title = "Sand-sand windows (numbers as on the diagram)"
-    if len(rows) > ROWS_PAGE1:
-        title += f": first {ROWS_PAGE1} of {len(rows)}, the rest overleaf"
-    _draw_table(ax_tab, rows[:ROWS_PAGE1], title)
-    _footer(fig, result)
-    pages = [fig]
-    rest = rows[ROWS_PAGE1:]
-    while rest:
+def window_table_pages(result) -> list[Figure]:
+    """Every row of ``juxtapositions.csv``, in file order, when page 1 could not show all."""
+    w = result.windows
+    n_cross = int((~w["self_juxtaposed"]).sum())
+    if n_cross <= ROWS_PAGE1 and len(w) == n_cross:
+        return []
+    numbers = list(range(1, len(w) + 1))
+    pages = []
+    for start in range(0, len(numbers), ROWS_PER_PAGE):
         page = Figure(figsize=PAGE_SIZE_IN)
-        page.suptitle(f"{result.well.name}: sand-sand windows (continued)", x=0.015, ha="left",
-                      fontsize=13, fontweight="bold")
-        ax = page.add_axes([0.03, 0.17, 0.94, 0.75])
-        _draw_table(ax, rest[:ROWS_PER_PAGE], "")
-        _footer(page, result)
+        page.suptitle(f"{result.well.name}: all sand-sand windows (rows of juxtapositions.csv)",
+                      x=0.015, ha="left", fontsize=13, fontweight="bold")
+        ax = page.add_axes([0.03, 0.15, 0.6, 0.78])
+        chunk = numbers[start:start + ROWS_PER_PAGE]
+        draw_window_table(ax, window_rows(w, chunk, result.settings.sgr_threshold_pct),
+                          f"rows {chunk[0]}-{chunk[-1]} of {len(w)}")
+        draw_footer(page, result)
         pages.append(page)
-        rest = rest[ROWS_PER_PAGE:]
+    return pages
+
+
+EXTRA_PAGES: list[Callable[[object], list[Figure]]] = [window_table_pages]
+"""Functions ``result -> list of Figures`` appended after page 1, in order."""
+
+
+def build_sheet(result) -> list[Figure]:
+    """The screening sheet for one :class:`~logprep.pipeline.WellScreening`."""
+    pages = [overview_page(result)]
+    for make in EXTRA_PAGES:
+        pages += make(result)
     return pages
