@@ -9,6 +9,7 @@ from typing import Callable, Iterable
 from logprep.errors import LogprepError
 from logprep.outputs import folder_name, render_well, write_summary, write_well
 from logprep.pipeline import ScreenSettings, screen_file
+from logprep.tops import read_tops
 
 
 def find_las_files(paths: Iterable[str | Path]) -> list[Path]:
@@ -64,6 +65,7 @@ def screen_paths(
     files = find_las_files(paths)
     if not files:
         raise LogprepError(f"no .las files found in {', '.join(map(str, paths))}")
+    tops = read_tops(settings.tops_file) if settings.tops_file else None
     taken: set[str] = set()
     rows: list[dict] = []
     iterator = progress(files) if progress else files
@@ -72,7 +74,7 @@ def screen_paths(
         row = {"well": name, "source": str(f), "status": "ok", "message": "",
                "layers": "", "sand_sand_windows": "", "min_window_sgr_pct": "", "folder": ""}
         try:
-            result = screen_file(f, settings)
+            result = screen_file(f, settings, tops=tops)
             files_out = render_well(result, build_sheet)
             write_well(files_out, out / name)
         except LogprepError as exc:

@@ -26,6 +26,8 @@ def _clay_options(p: argparse.ArgumentParser, d) -> None:
                    help="gamma-ray curve to use (default: first of the known GR mnemonics)")
     g.add_argument("--depth-unit", dest="depth_unit", choices=["m", "ft"],
                    help="depth unit when a file does not state one")
+    g.add_argument("--tops", dest="tops_file", metavar="FILE",
+                   help="formation tops: CSV of well, top_m, name; a markers file; or a folder of them")
 
 
 def _blocking_options(p: argparse.ArgumentParser, d) -> None:

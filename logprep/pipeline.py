@@ -18,6 +18,7 @@ from logprep.errors import SettingsError
 from logprep.juxtaposition import juxtaposition_grid, sand_windows, sgr_layered_pct
 from logprep.lasread import read_well
 from logprep.model import Layers, WellLog
+from logprep.tops import TOPS_COLUMNS, read_tops, tops_for_well
 from logprep.vshale import get_transform, parse_endpoint, resolve_endpoint, vsh_from_gr
 
 
@@ -46,6 +47,9 @@ class ScreenSettings:
         Gamma-ray mnemonic to use instead of the alias search.
     depth_unit : str or None
         Depth unit to assume when a file does not state one.
+    tops_file : str or None
+        Formation tops (CSV ``well, top_m, name``, a markers file, or a folder of them);
+        the picks of each well are matched by well name or file stem.
     """
 
     transform: str = "linear"
@@ -59,6 +63,7 @@ class ScreenSettings:
     sgr_threshold_pct: float = 20.0
     gr_curve: str | None = None
     depth_unit: str | None = None
+    tops_file: str | None = None
 
     def __post_init__(self) -> None:
         get_transform(self.transform)
@@ -99,6 +104,7 @@ class WellScreening:
     gr_shale_api: float
     layers: Layers
     windows: pd.DataFrame
+    tops: pd.DataFrame = field(default_factory=lambda: pd.DataFrame(columns=TOPS_COLUMNS))
     notes: tuple[str, ...] = field(default_factory=tuple)
 
     @property
@@ -119,8 +125,28 @@ class WellScreening:
         return depth, throw, sgr, jux
 
 
-def screen_well(well: WellLog, settings: ScreenSettings = ScreenSettings()) -> WellScreening:
-    """Run the screening science on a well already read."""
+def well_tops(well: WellLog, settings: ScreenSettings, tops: pd.DataFrame | None = None) -> pd.DataFrame:
+    """The tops of ``well`` from ``tops`` (all wells) or from ``settings.tops_file``;
+    matched on the WELL name or the file stem.  Empty when there are none."""
+    if tops is None:
+        if not settings.tops_file:
+            return pd.DataFrame(columns=TOPS_COLUMNS)
+        tops = read_tops(settings.tops_file)
+    return tops_for_well(tops, well.name, Path(well.source).stem)
+
+
+def screen_well(
+    well: WellLog,
+    settings: ScreenSettings = ScreenSettings(),
+    *,
+    tops: pd.DataFrame | None = None,
+) -> WellScreening:
+    """Run the screening science on a well already read.
+
+    ``tops`` is a tops table for any number of wells (see :mod:`logprep.tops`); when it is
+    None and ``settings.tops_file`` is set, that file is read.
+    """
+    picks = well_tops(well, settings, tops)
     gr_all = well.gr_api
     valid = np.flatnonzero(np.isfinite(gr_all))
     if valid.size < 2:
@@ -151,11 +177,16 @@ def screen_well(well: WellLog, settings: ScreenSettings = ScreenSettings()) -> W
     return WellScreening(
         well=well, settings=settings, depth_m=depth, gr_api=gr, vsh=vsh, filled=filled,
         gr_clean_api=clean, gr_shale_api=shale, layers=layers, windows=windows,
-        notes=tuple(notes),
+        tops=picks, notes=tuple(notes),
     )
 
 
-def screen_file(path: str | Path, settings: ScreenSettings = ScreenSettings()) -> WellScreening:
-    """Read a LAS file and screen it."""
+def screen_file(
+    path: str | Path,
+    settings: ScreenSettings = ScreenSettings(),
+    *,
+    tops: pd.DataFrame | None = None,
+) -> WellScreening:
+    """Read a LAS file and screen it (``tops`` as in :func:`screen_well`)."""
     well = read_well(path, gr_curve=settings.gr_curve, depth_unit=settings.depth_unit)
-    return screen_well(well, settings)
+    return screen_well(well, settings, tops=tops)

@@ -145,3 +145,14 @@ def test_readme_test_command_is_what_ci_runs():
     cmd = "python3 -m venv .venv && . .venv/bin/activate && pip install '.[test]' && pytest"
     assert cmd in readme and cmd in ci
     assert "&& logprep screen" in readme
+
+
+def test_tops_file_matched_to_wells(tmp_path, example_dir):
+    from logprep.pipeline import ScreenSettings, screen_file
+
+    s = ScreenSettings(tops_file=str(example_dir / "tops.csv"))
+    r = screen_file(example_dir / "HRM-3.las", s)
+    assert list(r.tops.columns) == ["well", "top_m", "name"]
+    assert len(r.tops) >= 6 and set(r.tops["well"]) == {"HRM-3"}
+    assert main(["screen", str(example_dir / "HRM-1.las"), "--tops", str(tmp_path / "none.csv"),
+                 "--out", str(tmp_path / "o")]) == 2
