@@ -47,10 +47,55 @@ def _fault_options(p: argparse.ArgumentParser, d) -> None:
     g.add_argument("--throw-max", dest="throw_max_m", type=float, metavar="M",
                    help=f"largest throw screened, metres (default: {d.throw_max_m})")
     g.add_argument("--sgr-threshold", dest="sgr_threshold_pct", type=float, metavar="PCT",
-                   help=f"SGR (%%) below which a window is flagged (default: {d.sgr_threshold_pct})")
+                   help=f"SGR (%%) below which a window is flagged; verdict 'seal' from here up "
+                        f"(default: {d.sgr_threshold_pct})")
 
 
-SETTINGS_OPTION_GROUPS = [_clay_options, _blocking_options, _fault_options]
+def _capacity_options(p: argparse.ArgumentParser, d) -> None:
+    from logprep.capacity import CO2_DENSITY_MODES
+    from logprep.units import LENGTH_UNITS
+
+    g = p.add_argument_group(
+        "seal capacity",
+        "Fault-zone pressure from SGR, column heights, verdicts and fault-rock properties. "
+        "Defaults are starting points, not calibrations.",
+    )
+    for fluid, attr in (("brine", "brine_density_kgm3"), ("oil", "oil_density_kgm3"),
+                        ("gas", "gas_density_kgm3"), ("co2", "co2_density_kgm3")):
+        g.add_argument(f"--{fluid}-density", dest=attr, type=float, metavar="KG/M3",
+                       help=f"{fluid.upper() if fluid == 'co2' else fluid} density (default: {getattr(d, attr):g})")
+    g.add_argument("--co2-density-mode", dest="co2_density_mode", choices=list(CO2_DENSITY_MODES),
+                   help="CO2 density: the fixed value, or from an equation of state at each "
+                        f"contact's pressure and temperature (needs CoolProp) (default: {d.co2_density_mode})")
+    g.add_argument("--surface-temp", dest="surface_temp_c", type=float, metavar="DEGC",
+                   help=f"temperature at sea level for --co2-density-mode eos (default: {d.surface_temp_c:g})")
+    g.add_argument("--geothermal-gradient", dest="geothermal_gradient_c_per_km", type=float,
+                   metavar="DEGC/KM", help=f"geothermal gradient (default: {d.geothermal_gradient_c_per_km:g})")
+    g.add_argument("--max-burial", dest="max_burial_m", type=float, metavar="M",
+                   help="maximum burial depth for the pressure envelope (default: each contact's "
+                        "depth below sea level, or as logged when the header has no elevation)")
+    g.add_argument("--envelope-scale", dest="envelope_sgr_scale_pct", type=float, metavar="PCT",
+                   help=f"SGR per decade of fault-zone pressure (default: {d.envelope_sgr_scale_pct:g})")
+    g.add_argument("--envelope-bounds", dest="envelope_class_bounds_m", metavar="M,M",
+                   help="burial class boundaries, metres (default: "
+                        f"{','.join(f'{v:g}' for v in d.envelope_class_bounds_m)})")
+    g.add_argument("--envelope-c", dest="envelope_class_c", metavar="C,C,C",
+                   help="envelope constant C per burial class, shallow to deep (default: "
+                        f"{','.join(f'{v:g}' for v in d.envelope_class_c)})")
+    g.add_argument("--sgr-leak", dest="sgr_leak_pct", type=float, metavar="PCT",
+                   help="verdict 'leak' below this window SGR; 'seal' from --sgr-threshold up; "
+                        f"'uncertain' between (default: {d.sgr_leak_pct:g})")
+    g.add_argument("--length-unit", dest="length_unit", choices=list(LENGTH_UNITS),
+                   help=f"unit of column heights on the sheet; ft adds column_*_ft (default: {d.length_unit})")
+    g.add_argument("--cell-length", dest="cell_length_m", type=float, metavar="M",
+                   help=f"cell length for the transmissibility multiplier (default: {d.cell_length_m:g})")
+    g.add_argument("--matrix-perm", dest="matrix_perm_md", type=float, metavar="MD",
+                   help=f"matrix permeability for the transmissibility multiplier (default: {d.matrix_perm_md:g})")
+    g.add_argument("--faulting-depth", dest="faulting_depth_m", type=float, metavar="M",
+                   help="depth at the time of faulting, for the Sperrevik permeability (default: burial depth)")
+
+
+SETTINGS_OPTION_GROUPS = [_clay_options, _blocking_options, _fault_options, _capacity_options]
 """Each adds one group of options whose ``dest`` is a :class:`ScreenSettings` field and
 whose default is None (not given); add a function here for a new group."""
 

@@ -238,9 +238,11 @@ def _to_well_log(path: Path, las, *, gr_curve, depth_unit) -> WellLog:
         raise CurveNotFoundError(f"gamma-ray curve {gr} has no valid samples")
 
     header: dict[str, str] = {}
+    header_units: dict[str, str] = {}
     for section in ("well", "params"):
         for item in las.sections.get("Well" if section == "well" else "Parameter", []):
             header.setdefault(item.mnemonic, str(item.value).strip())
+            header_units.setdefault(item.mnemonic, (item.unit or "").strip())
     name = header.get("WELL", "").strip() or path.stem
     return WellLog(
         name=name,
@@ -252,4 +254,5 @@ def _to_well_log(path: Path, las, *, gr_curve, depth_unit) -> WellLog:
         depth_unit=unit_read,
         gr_mnemonic=gr,
         header=header,
+        header_units=header_units,
     )

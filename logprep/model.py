@@ -48,6 +48,8 @@ class WellLog:
         The curve used as gamma ray.
     header : mapping of str to str
         ``~Well`` and ``~Parameter`` items (mnemonic -> value as text).
+    header_units : mapping of str to str
+        Units of those header items as read (``EKB`` in ``M`` or ``FT``, ...).
     """
 
     name: str
@@ -59,6 +61,7 @@ class WellLog:
     depth_unit: str
     gr_mnemonic: str
     header: Mapping[str, str] = field(default_factory=dict)
+    header_units: Mapping[str, str] = field(default_factory=dict)
 
     def __post_init__(self) -> None:
         object.__setattr__(self, "depth_m", _frozen(self.depth_m))
@@ -67,6 +70,7 @@ class WellLog:
         )
         object.__setattr__(self, "units", MappingProxyType(dict(self.units)))
         object.__setattr__(self, "header", MappingProxyType(dict(self.header)))
+        object.__setattr__(self, "header_units", MappingProxyType(dict(self.header_units)))
 
     @property
     def gr_api(self) -> np.ndarray:

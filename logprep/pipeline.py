@@ -14,12 +14,26 @@ import numpy as np
 import pandas as pd
 
 from logprep.blocking import check_cutoffs, fill_gaps, get_blocking_method
+from logprep.capacity import (
+    CO2_DENSITY_MODES, ENVELOPE_CLASS_BOUNDS_M, ENVELOPE_CLASS_C, ENVELOPE_SGR_SCALE_PCT,
+    capacity_params, depth_datum, seal_capacity_table,
+)
 from logprep.errors import SettingsError
 from logprep.juxtaposition import juxtaposition_grid, sand_windows, sgr_layered_pct
 from logprep.lasread import read_well
 from logprep.model import Layers, WellLog
+from logprep.units import LENGTH_UNITS
 from logprep.tops import TOPS_COLUMNS, read_tops, tops_for_well
 from logprep.vshale import get_transform, parse_endpoint, resolve_endpoint, vsh_from_gr
+
+
+def parse_number_list(value, name: str) -> tuple[float, ...]:
+    """A tuple of floats from a sequence or a comma-separated string (``"3000,3500"``)."""
+    items = value.split(",") if isinstance(value, str) else value
+    try:
+        return tuple(float(v) for v in items)
+    except (TypeError, ValueError):
+        raise SettingsError(f"{name}: expected comma-separated numbers (got {value!r})") from None
 
 
 @dataclass(frozen=True)
@@ -50,6 +64,34 @@ class ScreenSettings:
     tops_file : str or None
         Formation tops (CSV ``well, top_m, name``, a markers file, or a folder of them);
         the picks of each well are matched by well name or file stem.
+    brine_density_kgm3, oil_density_kgm3, gas_density_kgm3, co2_density_kgm3 : float
+        Fluid densities (kg/m3) for column heights.  Defaults 1050 / 750 / 250 / 700 lie
+        within the handbook ranges (AAPG Wiki gradients; IPCC 2005 for CO2): set your own.
+    co2_density_mode : str
+        ``fixed`` (``co2_density_kgm3``) or ``eos``: Span & Wagner (1996) through CoolProp at
+        the hydrostatic pressure and geothermal temperature of each window's contact.
+    surface_temp_c, geothermal_gradient_c_per_km : float
+        Temperature at sea level (deg C) and geothermal gradient (deg C/km) for ``eos``.
+    max_burial_m : float or None
+        Maximum burial depth (m) for the pressure envelope; None uses each window's
+        shallowest contact depth below sea level (or as logged when the header gives no
+        elevation).
+    envelope_sgr_scale_pct, envelope_class_bounds_m, envelope_class_c
+        Envelope ``FZP (bar) = 10^(SGR/scale - C)`` with ``C`` per burial class (Bretan,
+        Yielding & Jones 2003: 27; 3000, 3500 m; 0.5, 0.25, 0).  Replace with a local
+        calibration where one exists.
+    sgr_leak_pct : float
+        Window verdict ``leak`` below this minimum SGR, ``seal`` from ``sgr_threshold_pct``
+        up, ``uncertain`` between.
+    length_unit : str
+        ``m`` or ``ft``: unit of column heights on the sheet (``ft`` also adds
+        ``column_*_ft`` columns to the table).
+    cell_length_m, matrix_perm_md : float
+        Simulation cell length (m) and matrix permeability (mD) for the transmissibility
+        multiplier.
+    faulting_depth_m : float or None
+        Depth at the time of faulting (m) for the Sperrevik et al. (2002) permeability;
+        None takes the burial depth.
     """
 
     transform: str = "linear"
@@ -64,6 +106,22 @@ class ScreenSettings:
     gr_curve: str | None = None
     depth_unit: str | None = None
     tops_file: str | None = None
+    brine_density_kgm3: float = 1050.0
+    oil_density_kgm3: float = 750.0
+    gas_density_kgm3: float = 250.0
+    co2_density_kgm3: float = 700.0
+    co2_density_mode: str = "fixed"
+    surface_temp_c: float = 10.0
+    geothermal_gradient_c_per_km: float = 30.0
+    max_burial_m: float | None = None
+    envelope_sgr_scale_pct: float = ENVELOPE_SGR_SCALE_PCT
+    envelope_class_bounds_m: tuple[float, ...] = ENVELOPE_CLASS_BOUNDS_M
+    envelope_class_c: tuple[float, ...] = ENVELOPE_CLASS_C
+    sgr_leak_pct: float = 15.0
+    length_unit: str = "m"
+    cell_length_m: float = 100.0
+    matrix_perm_md: float = 100.0
+    faulting_depth_m: float | None = None
 
     def __post_init__(self) -> None:
         get_transform(self.transform)
@@ -77,6 +135,44 @@ class ScreenSettings:
             raise SettingsError(f"--throw-max must be > 0 m (got {self.throw_max_m:g})")
         if not 0 <= self.sgr_threshold_pct <= 100:
             raise SettingsError(f"SGR threshold must be within 0-100 % (got {self.sgr_threshold_pct:g})")
+        self._check_capacity()
+
+    def _check_capacity(self) -> None:
+        for name in ("envelope_class_bounds_m", "envelope_class_c"):
+            object.__setattr__(self, name, parse_number_list(getattr(self, name), name))
+        b, c = self.envelope_class_bounds_m, self.envelope_class_c
+        if list(b) != sorted(b) or len(c) != len(b) + 1:
+            raise SettingsError(
+                f"--envelope-bounds must increase and --envelope-c have one more value "
+                f"(got bounds {list(b)}, C {list(c)})"
+            )
+        if not 0 <= self.sgr_leak_pct <= self.sgr_threshold_pct:
+            raise SettingsError(
+                f"--sgr-leak ({self.sgr_leak_pct:g} %) must be within 0 and the SGR threshold "
+                f"({self.sgr_threshold_pct:g} %)"
+            )
+        if not self.envelope_sgr_scale_pct > 0:
+            raise SettingsError(f"--envelope-scale must be > 0 (got {self.envelope_sgr_scale_pct:g})")
+        for name in ("oil", "gas", "co2"):
+            rho = getattr(self, f"{name}_density_kgm3")
+            if not 0 < rho < self.brine_density_kgm3:
+                raise SettingsError(
+                    f"--{name}-density {rho:g} kg/m3 must be > 0 and below the brine density "
+                    f"{self.brine_density_kgm3:g} kg/m3"
+                )
+        if self.co2_density_mode not in CO2_DENSITY_MODES:
+            raise SettingsError(
+                f"unknown CO2 density mode {self.co2_density_mode!r}; use one of {', '.join(CO2_DENSITY_MODES)}"
+            )
+        if self.length_unit not in LENGTH_UNITS:
+            raise SettingsError(f"unknown length unit {self.length_unit!r}; use one of {', '.join(LENGTH_UNITS)}")
+        for name in ("cell_length_m", "matrix_perm_md"):
+            if not getattr(self, name) > 0:
+                raise SettingsError(f"{name} must be > 0 (got {getattr(self, name):g})")
+        for name in ("max_burial_m", "faulting_depth_m"):
+            v = getattr(self, name)
+            if v is not None and not v >= 0:
+                raise SettingsError(f"{name} must be >= 0 m (got {v:g})")
 
     def to_dict(self) -> dict:
         return asdict(self)
@@ -174,11 +270,29 @@ def screen_well(
         min_bed_m=settings.min_bed_m, filled=filled,
     )
     windows = sand_windows(layers, settings.throw_max_m)
+    windows, note = seal_capacity_step(well, layers, windows, settings)
+    notes.append(note)
     return WellScreening(
         well=well, settings=settings, depth_m=depth, gr_api=gr, vsh=vsh, filled=filled,
         gr_clean_api=clean, gr_shale_api=shale, layers=layers, windows=windows,
         tops=picks, notes=tuple(notes),
     )
+
+
+def seal_capacity_step(well: WellLog, layers: Layers, windows: pd.DataFrame,
+                       settings: ScreenSettings) -> tuple[pd.DataFrame, str]:
+    """Seal-capacity columns for the windows (see :mod:`logprep.capacity`) and a note on
+    the depth datum used for burial, pressure and temperature."""
+    datum, source = depth_datum(well)
+    if settings.max_burial_m is not None:
+        note = f"burial depth set to {settings.max_burial_m:g} m (maximum burial setting)"
+    elif datum is None:
+        note = "burial depth = depth as logged (no elevation in the LAS header; set --max-burial)"
+    else:
+        note = f"burial depth = contact depth below sea level (logged depth - {source})"
+    table = seal_capacity_table(windows, layers, capacity_params(settings), datum_m=datum or 0.0,
+                                length_unit=settings.length_unit)
+    return table, note
 
 
 def screen_file(
