@@ -29,6 +29,19 @@ GR_ALIASES: list[str] = [
 """Gamma-ray mnemonics, in order of preference (total GR before spectral sums, computed
 GR last).  Extend with :func:`register_gr_alias`."""
 
+CURVE_ALIASES: dict[str, list[str]] = {
+    "gr": GR_ALIASES,
+    "nphi": ["NPHI", "TNPH", "NPOR", "NPHI_SS", "CNC", "CNCF", "PHIN", "NEUT", "TNPHI", "NPSS"],
+    "rhob": ["RHOB", "RHOZ", "DEN", "ZDEN", "DENS", "RHOB_CORR", "HDEN", "RHO8"],
+    "cali": ["CALI", "CAL", "CALX", "CALS", "HCAL", "C1", "CALY", "CALIPER"],
+    "bs": ["BS", "BIT", "BITSIZE", "BIT_SIZE"],
+}
+"""Mnemonics by curve kind (gamma ray, neutron porosity, bulk density, caliper, bit size),
+in order of preference; first match wins.  Add a kind or a mnemonic here."""
+
+_KIND_NAMES = {"gr": "gamma-ray", "nphi": "neutron-porosity", "rhob": "bulk-density",
+               "cali": "caliper", "bs": "bit-size"}
+
 DEPTH_UNITS_M: dict[str, float] = {
     "M": 1.0, "METER": 1.0, "METERS": 1.0, "METRE": 1.0, "METRES": 1.0,
     "FT": FT_TO_M, "F": FT_TO_M, "FEET": FT_TO_M, "FOOT": FT_TO_M,
@@ -90,12 +103,20 @@ def _base_mnemonic(mnemonic: str) -> str:
     return mnemonic.split(":")[0].strip().upper()
 
 
-def find_gr_curve(mnemonics: list[str], units: dict[str, str], wanted: str | None = None) -> str:
-    """Choose the gamma-ray mnemonic from ``mnemonics``.
+def find_curve(
+    mnemonics: list[str],
+    units: dict[str, str],
+    kind: str = "gr",
+    wanted: str | None = None,
+    *,
+    required: bool = True,
+) -> str | None:
+    """Choose the curve of ``kind`` (a key of :data:`CURVE_ALIASES`) from ``mnemonics``.
 
-    ``wanted`` (case-insensitive) must exist when given.  Otherwise the first entry of
-    :data:`GR_ALIASES` present wins; failing that, the first curve with an API unit.
-    Raises :class:`CurveNotFoundError` naming the curves found.
+    ``wanted`` (case-insensitive) must exist when given.  Otherwise the first alias of the
+    kind present wins; for gamma ray, failing that, the first curve with an API unit.
+    Raises :class:`CurveNotFoundError` naming the curves found, or returns None when
+    ``required`` is False.
     """
     by_upper = {}
     for m in mnemonics:
@@ -108,16 +129,33 @@ def find_gr_curve(mnemonics: list[str], units: dict[str, str], wanted: str | Non
         raise CurveNotFoundError(
             f"no curve named {wanted!r} (found {', '.join(mnemonics) or 'none'})"
         )
-    for alias in GR_ALIASES:
+    for alias in CURVE_ALIASES[kind]:
         if alias in by_upper:
             return by_upper[alias]
-    for m in mnemonics:
-        if units.get(m, "").strip().upper() in _API_UNITS:
-            return m
+    if kind == "gr":
+        for m in mnemonics:
+            if units.get(m, "").strip().upper() in _API_UNITS:
+                return m
+    if not required:
+        return None
+    hint = "; name one with --gr-curve" if kind == "gr" else ""
     raise CurveNotFoundError(
-        f"no gamma-ray curve (found {', '.join(mnemonics) or 'no curves'}); "
-        "name one with --gr-curve"
+        f"no {_KIND_NAMES.get(kind, kind)} curve (found {', '.join(mnemonics) or 'no curves'}){hint}"
     )
+
+
+def find_gr_curve(mnemonics: list[str], units: dict[str, str], wanted: str | None = None) -> str:
+    """Choose the gamma-ray mnemonic (see :func:`find_curve`)."""
+    return find_curve(mnemonics, units, "gr", wanted)
+
+
+def well_curve(well: WellLog, kind: str) -> tuple[np.ndarray, str] | None:
+    """``(values, unit as read)`` of the well's curve of ``kind``, or None when absent or
+    without a single valid sample."""
+    name = find_curve(list(well.curves), dict(well.units), kind, required=False)
+    if name is None or not np.any(np.isfinite(well.curves[name])):
+        return None
+    return well.curves[name], well.units.get(name, "")
 
 
 def read_well(

@@ -20,11 +20,18 @@ from logprep.capacity import (
 )
 from logprep.errors import SettingsError
 from logprep.juxtaposition import juxtaposition_grid, sand_windows, sgr_layered_pct
-from logprep.lasread import read_well
+from logprep.endpoints import (
+    PICK_COLUMNS, ZONINGS, lines_per_sample, nd_shale_separation, pick_endpoints, zone_bounds,
+)
+from logprep.lasread import read_well, well_curve
 from logprep.model import Layers, WellLog
 from logprep.units import LENGTH_UNITS
+from logprep.qc import REPLACED, QcSettings, any_flag, gr_flags, inches
 from logprep.tops import TOPS_COLUMNS, read_tops, tops_for_well
-from logprep.vshale import get_transform, parse_endpoint, resolve_endpoint, vsh_from_gr
+from logprep.vshale import (
+    density_g_cm3, density_porosity, gamma_ray_index, gas_crossover, get_combination,
+    get_transform, neutron_v_v, parse_endpoint, vsh_neutron_density,
+)
 
 
 def parse_number_list(value, name: str) -> tuple[float, ...]:
@@ -92,6 +99,22 @@ class ScreenSettings:
     faulting_depth_m : float or None
         Depth at the time of faulting (m) for the Sperrevik et al. (2002) permeability;
         None takes the burial depth.
+    zoning : str
+        How the well is cut into zones for the GR endpoint picks, one of
+        :data:`logprep.endpoints.ZONINGS`: ``auto`` (tops when the well has some, else
+        changepoints of the GR baseline), ``tops``, ``changepoint`` or ``none``.
+    zone_min_m : float
+        Shortest zone (m) the changepoint split makes.
+    zone_step_api : float
+        Least step (API) of the GR baseline between two changepoint zones.
+    min_contrast : float
+        A zone whose clean-shale contrast is below this fraction of the well's is treated
+        as one-sided (see :func:`logprep.endpoints.pick_endpoints`).
+    vsh_combine : str
+        How the GR and neutron-density Vsh make the chosen Vsh, a key of
+        :data:`logprep.vshale.COMBINATIONS` (``gr`` ignores neutron-density).
+    washout_in : float
+        Caliper over bit size (inches) above which a sample is a washout.
     """
 
     transform: str = "linear"
@@ -122,9 +145,26 @@ class ScreenSettings:
     cell_length_m: float = 100.0
     matrix_perm_md: float = 100.0
     faulting_depth_m: float | None = None
+    zoning: str = "auto"
+    zone_min_m: float = 200.0
+    zone_step_api: float = 8.0
+    min_contrast: float = 0.7
+    vsh_combine: str = "mean"
+    washout_in: float = 1.5
 
     def __post_init__(self) -> None:
         get_transform(self.transform)
+        get_combination(self.vsh_combine)
+        if self.zoning not in ZONINGS:
+            raise SettingsError(f"unknown zoning {self.zoning!r}; choose one of {', '.join(ZONINGS)}")
+        if not self.zone_min_m > 0:
+            raise SettingsError(f"--zone-min must be > 0 m (got {self.zone_min_m:g})")
+        if not self.zone_step_api >= 0:
+            raise SettingsError(f"--zone-step must be >= 0 API (got {self.zone_step_api:g})")
+        if not 0 <= self.min_contrast <= 1:
+            raise SettingsError(f"--min-contrast must be within 0-1 (got {self.min_contrast:g})")
+        if not self.washout_in > 0:
+            raise SettingsError(f"--washout must be > 0 in (got {self.washout_in:g})")
         get_blocking_method(self.blocking)
         object.__setattr__(self, "gr_clean", parse_endpoint(self.gr_clean))
         object.__setattr__(self, "gr_shale", parse_endpoint(self.gr_shale))
@@ -187,7 +227,12 @@ class WellScreening:
     """Everything computed for one well.
 
     ``depth_m``/``gr_api``/``vsh`` cover the screened interval (first to last valid GR);
-    ``filled`` marks samples whose GR was missing and whose Vsh was interpolated.
+    ``gr_api`` is the GR as read; ``filled`` marks samples whose Vsh was interpolated (GR
+    missing, or replaced after QC).  ``vsh_gr`` and ``vsh_nd`` are the two estimates
+    before combination (``vsh_nd`` NaN without neutron and density logs); ``qc_flags``
+    holds the boolean flags of :data:`logprep.qc.QC_FLAGS`; ``picks`` the endpoint picks
+    per zone (``picks.csv``); ``gr_clean_line``/``gr_shale_line`` the lines per sample.
+    ``gr_clean_api``/``gr_shale_api`` are the whole-well lines, for reference.
     """
 
     well: WellLog
@@ -202,6 +247,12 @@ class WellScreening:
     windows: pd.DataFrame
     tops: pd.DataFrame = field(default_factory=lambda: pd.DataFrame(columns=TOPS_COLUMNS))
     notes: tuple[str, ...] = field(default_factory=tuple)
+    vsh_gr: np.ndarray | None = None
+    vsh_nd: np.ndarray | None = None
+    qc_flags: dict = field(default_factory=dict)
+    picks: pd.DataFrame = field(default_factory=lambda: pd.DataFrame(columns=PICK_COLUMNS))
+    gr_clean_line: np.ndarray | None = None
+    gr_shale_line: np.ndarray | None = None
 
     @property
     def min_window_sgr_pct(self) -> float:
@@ -231,6 +282,97 @@ def well_tops(well: WellLog, settings: ScreenSettings, tops: pd.DataFrame | None
     return tops_for_well(tops, well.name, Path(well.source).stem)
 
 
+@dataclass(frozen=True)
+class ClayVolume:
+    """The clay-volume stage of one well (see :func:`clay_volume`)."""
+
+    depth_m: np.ndarray
+    gr_api: np.ndarray
+    vsh_gr: np.ndarray
+    vsh_nd: np.ndarray
+    vsh: np.ndarray
+    qc_flags: dict
+    picks: pd.DataFrame
+    gr_clean_line: np.ndarray
+    gr_shale_line: np.ndarray
+    gr_clean_api: float
+    gr_shale_api: float
+    notes: tuple[str, ...]
+
+
+def _curve_in(well: WellLog, kind: str, sl: slice, convert):
+    found = well_curve(well, kind)
+    if found is None:
+        return None
+    values, unit = found
+    try:
+        return convert(values[sl], unit)
+    except SettingsError as exc:
+        raise SettingsError(f"{well.source}: {exc}") from None
+
+
+def clay_volume(well: WellLog, settings: ScreenSettings = ScreenSettings(),
+                tops: pd.DataFrame | None = None) -> ClayVolume:
+    """GR QC, zoned endpoint picks, GR and neutron-density Vsh and their combination,
+    over the interval from the first to the last valid GR sample.
+
+    ``tops`` are this well's tops (columns ``well, top_m, name``) or None.  ``vsh`` is
+    NaN where the GR is missing or was replaced after QC (interpolated later).
+    """
+    gr_all = well.gr_api
+    valid = np.flatnonzero(np.isfinite(gr_all))
+    if valid.size < 2:
+        raise SettingsError(f"{well.source}: fewer than two valid GR samples")
+    sl = slice(valid[0], valid[-1] + 1)
+    depth, gr_read = well.depth_m[sl], gr_all[sl]
+    notes = []
+    cali = _curve_in(well, "cali", sl, inches)
+    bs = _curve_in(well, "bs", sl, inches)
+    flags = gr_flags(depth, gr_read, cali_in=cali, bs_in=bs,
+                     settings=QcSettings(washout_in=settings.washout_in))
+    gr = np.where(any_flag(flags, REPLACED), np.nan, gr_read)
+    exclude = any_flag(flags)
+    bounds, source, names = zone_bounds(
+        depth, np.where(exclude, np.nan, gr), settings.zoning, tops, bs_in=bs,
+        min_zone_m=settings.zone_min_m, min_step_api=settings.zone_step_api,
+    )
+    try:
+        picks = pick_endpoints(depth, gr, bounds, clean=settings.gr_clean, shale=settings.gr_shale,
+                               exclude=exclude, min_contrast=settings.min_contrast,
+                               source=source, names=names)
+        whole = pick_endpoints(depth, gr, [], clean=settings.gr_clean, shale=settings.gr_shale,
+                               exclude=exclude)
+    except SettingsError as exc:
+        raise SettingsError(f"{well.source}: {exc}") from None
+    clean_line = lines_per_sample(depth, picks, "gr_clean_api")
+    shale_line = lines_per_sample(depth, picks, "gr_shale_api")
+    vsh_gr = get_transform(settings.transform)(gamma_ray_index(gr, clean_line, shale_line))
+
+    vsh_nd = np.full(depth.size, np.nan)
+    nphi = _curve_in(well, "nphi", sl, neutron_v_v)
+    rhob = _curve_in(well, "rhob", sl, density_g_cm3)
+    flags["gas_crossover"] = np.zeros(depth.size, dtype=bool)
+    if nphi is not None and rhob is not None and settings.vsh_combine != "gr":
+        phid = density_porosity(rhob)
+        sep = nphi - phid
+        picks["nd_shale_separation"] = nd_shale_separation(depth, gr, sep, picks, exclude=exclude)
+        sep_line = lines_per_sample(depth, picks, "nd_shale_separation")
+        usable = np.isfinite(sep_line) & ~flags["washout"]
+        for value in np.unique(sep_line[usable]):
+            m = usable & (sep_line == value)
+            vsh_nd[m] = vsh_neutron_density(nphi[m], phid[m], float(value))
+        flags["gas_crossover"] = gas_crossover(nphi, phid) & usable & np.isfinite(gr)
+        if not usable.any():
+            notes.append("neutron-density: no usable shale point; GR Vsh alone")
+    vsh = get_combination(settings.vsh_combine)(vsh_gr, vsh_nd)
+    return ClayVolume(
+        depth_m=depth, gr_api=gr_read, vsh_gr=vsh_gr, vsh_nd=vsh_nd, vsh=vsh, qc_flags=flags,
+        picks=picks, gr_clean_line=clean_line, gr_shale_line=shale_line,
+        gr_clean_api=float(whole["gr_clean_api"].iloc[0]),
+        gr_shale_api=float(whole["gr_shale_api"].iloc[0]), notes=tuple(notes),
+    )
+
+
 def screen_well(
     well: WellLog,
     settings: ScreenSettings = ScreenSettings(),
@@ -243,25 +385,13 @@ def screen_well(
     None and ``settings.tops_file`` is set, that file is read.
     """
     picks = well_tops(well, settings, tops)
-    gr_all = well.gr_api
-    valid = np.flatnonzero(np.isfinite(gr_all))
-    if valid.size < 2:
-        raise SettingsError(f"{well.source}: fewer than two valid GR samples")
-    sl = slice(valid[0], valid[-1] + 1)
-    depth, gr = well.depth_m[sl], gr_all[sl]
-    notes = []
-    clean = resolve_endpoint(settings.gr_clean, gr)
-    shale = resolve_endpoint(settings.gr_shale, gr)
-    if clean >= shale:
-        raise SettingsError(
-            f"{well.source}: GR clean line {clean:.1f} API is not below the shale line "
-            f"{shale:.1f} API; set --gr-clean/--gr-shale"
-        )
-    vsh_raw = vsh_from_gr(gr, clean, shale, settings.transform)
-    vsh, filled = fill_gaps(depth, vsh_raw)
+    cv = clay_volume(well, settings, picks)
+    depth = cv.depth_m
+    notes = list(cv.notes)
+    vsh, filled = fill_gaps(depth, cv.vsh)
     if filled.any():
         notes.append(
-            f"{int(filled.sum())} missing GR samples inside the interval; Vsh interpolated there"
+            f"{int(filled.sum())} GR samples missing or replaced after QC; Vsh interpolated there"
         )
     method = get_blocking_method(settings.blocking)
     layers = method(
@@ -273,9 +403,11 @@ def screen_well(
     windows, note = seal_capacity_step(well, layers, windows, settings)
     notes.append(note)
     return WellScreening(
-        well=well, settings=settings, depth_m=depth, gr_api=gr, vsh=vsh, filled=filled,
-        gr_clean_api=clean, gr_shale_api=shale, layers=layers, windows=windows,
-        tops=picks, notes=tuple(notes),
+        well=well, settings=settings, depth_m=depth, gr_api=cv.gr_api, vsh=vsh, filled=filled,
+        gr_clean_api=cv.gr_clean_api, gr_shale_api=cv.gr_shale_api, layers=layers,
+        windows=windows, tops=picks, notes=tuple(notes), vsh_gr=cv.vsh_gr, vsh_nd=cv.vsh_nd,
+        qc_flags=cv.qc_flags, picks=cv.picks, gr_clean_line=cv.gr_clean_line,
+        gr_shale_line=cv.gr_shale_line,
     )
 
 

@@ -11,6 +11,8 @@ References
    SPE 2961.
 4. Clavier, C., Hoyle, W. and Meunier, D. (1971). Quantitative interpretation of thermal
    neutron decay time logs. J. Pet. Tech. 23(6), 743-755.
+5. Crain, E.R. Crain's Petrophysical Handbook, shale volume from the neutron-density
+   separation (response equations for a water-filled rock whose matrix reads zero).
 """
 
 from __future__ import annotations
@@ -30,8 +32,9 @@ def gamma_ray_index(gr_api, gr_clean_api: float, gr_shale_api: float, *, clip: b
     ----------
     gr_api : array_like
         Gamma-ray readings, API units.  NaN stays NaN.
-    gr_clean_api, gr_shale_api : float
-        Clean-sand and shale lines, API; ``gr_clean_api < gr_shale_api``.
+    gr_clean_api, gr_shale_api : float or array_like
+        Clean-sand and shale lines, API (one value, or one per sample for zoned picks);
+        ``gr_clean_api < gr_shale_api`` everywhere.
     clip : bool, default True
         Clip IGR to [0, 1].  Readings cleaner than the clean line or hotter than the shale
         line are then treated as clean sand and pure shale; this is an implementation
@@ -47,14 +50,18 @@ def gamma_ray_index(gr_api, gr_clean_api: float, gr_shale_api: float, *, clip: b
     >>> round(float(gamma_ray_index(28.0, 15.0, 128.0)), 5)
     0.11504
     """
-    if not np.isfinite(gr_clean_api) or not np.isfinite(gr_shale_api):
+    clean = np.asarray(gr_clean_api, dtype=float)
+    shale = np.asarray(gr_shale_api, dtype=float)
+    if not (np.all(np.isfinite(clean)) and np.all(np.isfinite(shale))):
         raise SettingsError("GR clean and shale lines must be finite numbers")
-    if gr_clean_api >= gr_shale_api:
+    if np.any(clean >= shale):
+        k = np.argmax(np.broadcast_to(clean >= shale, np.broadcast(clean, shale).shape))
+        c, s = np.broadcast_to(clean, np.broadcast(clean, shale).shape).flat[k], \
+            np.broadcast_to(shale, np.broadcast(clean, shale).shape).flat[k]
         raise SettingsError(
-            f"GR clean line ({gr_clean_api:g} API) must be below the shale line "
-            f"({gr_shale_api:g} API)"
+            f"GR clean line ({c:g} API) must be below the shale line ({s:g} API)"
         )
-    igr = (np.asarray(gr_api, dtype=float) - gr_clean_api) / (gr_shale_api - gr_clean_api)
+    igr = (np.asarray(gr_api, dtype=float) - clean) / (shale - clean)
     return np.clip(igr, 0.0, 1.0) if clip else igr
 
 
@@ -153,3 +160,167 @@ def resolve_endpoint(setting: float | str, gr_api) -> float:
 def vsh_from_gr(gr_api, gr_clean_api: float, gr_shale_api: float, transform: str = "linear"):
     """Clay volume from gamma ray: IGR (clipped to [0, 1]) through a named transform."""
     return get_transform(transform)(gamma_ray_index(gr_api, gr_clean_api, gr_shale_api))
+
+
+# ------------------------------------------------------------------ neutron-density
+DENSITY_UNITS: dict[str, float] = {
+    "G/CM3": 1.0, "G/CC": 1.0, "GM/CC": 1.0, "GR/CC": 1.0, "G/C3": 1.0, "GCC": 1.0,
+    "G/CM^3": 1.0, "KG/M3": 1e-3, "K/M3": 1e-3, "KG/M^3": 1e-3, "KGM3": 1e-3,
+}
+"""Bulk-density units understood, with their factor to g/cm3."""
+
+NEUTRON_UNITS: dict[str, float] = {
+    "V/V": 1.0, "M3/M3": 1.0, "DEC": 1.0, "FRAC": 1.0, "FRACTION": 1.0, "CFCF": 1.0,
+    "PU": 0.01, "%": 0.01, "P.U.": 0.01, "PERCENT": 0.01,
+}
+"""Neutron-porosity units understood, with their factor to a fraction (v/v)."""
+
+
+def _unit_factor(values, unit: str, table: dict[str, float], big: float, big_factor: float,
+                 what: str) -> float:
+    key = (unit or "").strip().upper().replace(" ", "")
+    if key in table:
+        return table[key]
+    v = np.asarray(values, dtype=float)
+    v = v[np.isfinite(v)]
+    if key not in ("", "_", "UNITLESS", "NONE") :
+        raise SettingsError(
+            f"{what} unit {unit!r} is not understood; use one of {', '.join(sorted(table))}"
+        )
+    # No unit stated: judge from the magnitude (common practice, no source).
+    return big_factor if v.size and float(np.median(v)) > big else 1.0
+
+
+def density_g_cm3(rhob, unit: str):
+    """Bulk density in g/cm3 from a curve in any unit of :data:`DENSITY_UNITS`.
+
+    A blank unit is judged from the values: a median above 100 means kg/m3.
+
+    Examples
+    --------
+    >>> float(density_g_cm3([2450.0], "kg/m3")[0])
+    2.45
+    """
+    f = _unit_factor(rhob, unit, DENSITY_UNITS, 100.0, 1e-3, "bulk-density")
+    return np.asarray(rhob, dtype=float) * f
+
+
+def neutron_v_v(nphi, unit: str):
+    """Neutron porosity as a fraction from a curve in any unit of :data:`NEUTRON_UNITS`.
+
+    A blank unit is judged from the values: a median above 1.5 means porosity units (%).
+    """
+    f = _unit_factor(nphi, unit, NEUTRON_UNITS, 1.5, 0.01, "neutron-porosity")
+    return np.asarray(nphi, dtype=float) * f
+
+
+def density_porosity(rhob_g_cm3, rho_matrix_g_cm3: float = 2.65, rho_fluid_g_cm3: float = 1.0):
+    """Density porosity PHID = (rho_ma - rho_b) / (rho_ma - rho_f).
+
+    Parameters
+    ----------
+    rhob_g_cm3 : array_like
+        Bulk density, g/cm3.
+    rho_matrix_g_cm3 : float, default 2.65
+        Matrix density (quartz sandstone, the matrix the neutron of most logs is scaled to).
+    rho_fluid_g_cm3 : float, default 1.0
+        Pore-fluid density (fresh water; mud filtrate near 1.0-1.1).
+
+    Notes
+    -----
+    Asquith & Gibson (1982), ch. IV (density log).
+
+    Examples
+    --------
+    >>> round(float(density_porosity(2.32)), 6)
+    0.2
+    """
+    if not rho_matrix_g_cm3 > rho_fluid_g_cm3:
+        raise SettingsError("matrix density must exceed fluid density")
+    rhob = np.asarray(rhob_g_cm3, dtype=float)
+    return (rho_matrix_g_cm3 - rhob) / (rho_matrix_g_cm3 - rho_fluid_g_cm3)
+
+
+def gas_crossover(nphi_v_v, phid):
+    """True where the neutron reads below the density porosity (PHIN < PHID): the
+    crossover of light hydrocarbon (gas) or of very clean, low-hydrogen rock."""
+    with np.errstate(invalid="ignore"):
+        return np.asarray(nphi_v_v, dtype=float) < np.asarray(phid, dtype=float)
+
+
+def vsh_neutron_density(nphi_v_v, phid, separation_shale: float):
+    """Clay volume from the neutron-density separation.
+
+    Vsh = (PHIN - PHID) / (PHIN_sh - PHID_sh), clipped to [0, 1].
+
+    Parameters
+    ----------
+    nphi_v_v : array_like
+        Neutron porosity, fraction, in the units of the matrix used for ``phid``.
+    phid : array_like
+        Density porosity, fraction (see :func:`density_porosity`).
+    separation_shale : float
+        PHIN_sh - PHID_sh read in a shale (fraction, > 0).
+
+    Notes
+    -----
+    Valid for water-filled rock.  In a gas crossover (PHIN < PHID) the separation is
+    negative; it is returned as 0 (clean), never as negative shale, and
+    :func:`gas_crossover` marks those samples.  Crain's Petrophysical Handbook response
+    equations; ../shared/METHODS.md section 1.
+
+    Examples
+    --------
+    >>> round(float(vsh_neutron_density(0.30, 0.20, 0.45 - 0.10)), 6)
+    0.285714
+    """
+    if not np.isfinite(separation_shale) or separation_shale <= 0:
+        raise SettingsError(
+            f"neutron-density shale separation must be > 0 (got {separation_shale:g})"
+        )
+    sep = np.asarray(nphi_v_v, dtype=float) - np.asarray(phid, dtype=float)
+    return np.clip(sep / separation_shale, 0.0, 1.0)
+
+
+def combine_mean(vsh_gr, vsh_nd):
+    """Mean of the GR and neutron-density estimates; GR alone where ND is missing."""
+    g, n = np.asarray(vsh_gr, dtype=float), np.asarray(vsh_nd, dtype=float)
+    return np.where(np.isfinite(n), 0.5 * (g + n), g)
+
+
+def combine_min(vsh_gr, vsh_nd):
+    """Lower of the GR and neutron-density estimates (each over-reads clay in its own
+    way: hot sands for GR, shaly-looking tight rock for ND); GR alone where ND is
+    missing.  Taking the minimum is common practice, no source."""
+    g, n = np.asarray(vsh_gr, dtype=float), np.asarray(vsh_nd, dtype=float)
+    return np.where(np.isfinite(n), np.fmin(g, n), g)
+
+
+def combine_gr_only(vsh_gr, vsh_nd):
+    """The GR estimate alone."""
+    return np.asarray(vsh_gr, dtype=float) * 1.0
+
+
+def combine_nd_first(vsh_gr, vsh_nd):
+    """The neutron-density estimate where it exists, else GR."""
+    g, n = np.asarray(vsh_gr, dtype=float), np.asarray(vsh_nd, dtype=float)
+    return np.where(np.isfinite(n), n, g)
+
+
+COMBINATIONS: dict[str, Callable] = {
+    "mean": combine_mean,
+    "min": combine_min,
+    "gr": combine_gr_only,
+    "nd": combine_nd_first,
+}
+"""Ways to join the GR and neutron-density Vsh into the chosen Vsh, by name."""
+
+
+def get_combination(name: str) -> Callable:
+    key = str(name).strip().lower()
+    try:
+        return COMBINATIONS[key]
+    except KeyError:
+        raise SettingsError(
+            f"unknown Vsh combination {name!r}; choose one of {', '.join(COMBINATIONS)}"
+        ) from None

@@ -1,0 +1,115 @@
+"""Validate logprep's default clay volume against interpreted lithology on open wells.
+
+Reads labelled open wells (never copied into the repository):
+
+* FORCE 2020 Norwegian wells (``force2020_norway/*.las``), curve
+  ``FORCE_2020_LITHOFACIES_LITHOLOGY``: sand = 30000 Sandstone, shale = 65000 Shale, every
+  other code (Sandstone/Shale, limestone, marl, ...) left out.  Bormann, Aursand, Dilib,
+  Dischington & Manral (2020), FORCE Machine Learning Competition, doi:10.5281/zenodo.4351156;
+  released as public data, no licence named in the source repository.
+* KGS Hugoton/Panoma wells (``labelled/kgs_panoma/panoma_data__data.csv``), core facies:
+  sand = facies 1 (non-marine sandstone), shale = facies 4 (marine siltstone and shale).
+  Facies 2-3 (siltstones) are neither; facies 5 "mudstone" is a carbonate mudstone in the
+  Dunham (1962) sense, not a shale, so it is left out too, as are the carbonates 6-9.
+  Only wells with at least 10 samples of each class are scored.  Kansas Geological Survey
+  data, KGS licence (see its KGS_LICENSE.md).
+
+Each well is scored by balanced accuracy of the call "Vsh < 0.5 is sand"
+(:mod:`logprep.validation`) for the naive whole-well P5/P95 linear baseline and for
+logprep's default settings (``ScreenSettings()``), printed side by side with medians.
+
+    python bench/validate_vshale.py [OPEN_LOGS_DIR]      # default ../shared/data/open_logs
+"""
+
+from __future__ import annotations
+
+import os
+import sys
+import warnings
+from pathlib import Path
+
+import numpy as np
+import pandas as pd
+
+from logprep.lasread import read_well
+from logprep.model import WellLog
+from logprep.pipeline import ScreenSettings, clay_volume
+from logprep.validation import balanced_accuracy, baseline_vsh
+
+REPO = Path(__file__).resolve().parents[1]
+FORCE_SAND, FORCE_SHALE = 30000, 65000
+KGS_SAND, KGS_SHALE = (1,), (4,)
+KGS_MIN_SAMPLES = 10
+
+
+def open_logs_dir(argv) -> Path:
+    if len(argv) > 1:
+        return Path(argv[1])
+    return Path(os.environ.get("LOGPREP_OPEN_LOGS", REPO.parent / "shared" / "data" / "open_logs"))
+
+
+def score_well(well: WellLog, label, sand_codes, shale_codes, settings=ScreenSettings()):
+    """``(baseline, default)`` balanced accuracy for one well with a label per sample."""
+    label = np.asarray(label, dtype=float)
+    is_sand, is_shale = np.isin(label, sand_codes), np.isin(label, shale_codes)
+    base = balanced_accuracy(baseline_vsh(well.gr_api), is_sand, is_shale)
+    cv = clay_volume(well, settings)
+    i0 = int(np.searchsorted(well.depth_m, cv.depth_m[0]))
+    sl = slice(i0, i0 + cv.depth_m.size)
+    default = balanced_accuracy(cv.vsh, is_sand[sl], is_shale[sl])
+    return base, default
+
+
+def force_rows(root: Path, settings=ScreenSettings()):
+    for f in sorted((root / "force2020_norway").glob("*.las")):
+        well = read_well(f)
+        label = well.curves["FORCE_2020_LITHOFACIES_LITHOLOGY"]
+        yield ("FORCE 2020", f.stem, *score_well(well, label, [FORCE_SAND], [FORCE_SHALE], settings))
+
+
+def kgs_wells(root: Path):
+    """The KGS wells as :class:`WellLog` (GR only) with their facies, duplicate depths
+    dropped (first kept)."""
+    path = root / "labelled" / "kgs_panoma" / "panoma_data__data.csv"
+    df = pd.read_csv(path)
+    for name, g in df.groupby("Well Name", sort=False):
+        g = g.drop_duplicates("Depth").sort_values("Depth")
+        well = WellLog(name=name, source=f"{path}#{name}", sha256="", depth_m=g["Depth"].to_numpy(),
+                       curves={"GR": g["GR"].to_numpy()}, units={"GR": "API"}, depth_unit="M",
+                       gr_mnemonic="GR")
+        yield well, g["Facies"].to_numpy()
+
+
+def kgs_rows(root: Path, settings=ScreenSettings()):
+    for well, facies in kgs_wells(root):
+        if np.isin(facies, KGS_SAND).sum() < KGS_MIN_SAMPLES or \
+                np.isin(facies, KGS_SHALE).sum() < KGS_MIN_SAMPLES:
+            continue
+        yield ("KGS Panoma", well.name, *score_well(well, facies, KGS_SAND, KGS_SHALE, settings))
+
+
+def main(argv=sys.argv) -> int:
+    root = open_logs_dir(argv)
+    if not (root / "force2020_norway").is_dir():
+        print(f"open data not found at {root}; pass the open_logs folder", file=sys.stderr)
+        return 2
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", RuntimeWarning)
+        rows = list(force_rows(root)) + list(kgs_rows(root))
+    table = pd.DataFrame(rows, columns=["set", "well", "baseline_p5_p95", "logprep_default"])
+    table["gain"] = table["logprep_default"] - table["baseline_p5_p95"]
+    pd.set_option("display.width", 120)
+    print("Sand-versus-shale balanced accuracy (call: Vsh < 0.5 is sand)")
+    print(table.to_string(index=False, float_format=lambda x: f"{x:.3f}"))
+    for name, g in table.groupby("set", sort=False):
+        print(f"{name}: median baseline {g['baseline_p5_p95'].median():.3f}, "
+              f"median default {g['logprep_default'].median():.3f}; worst baseline "
+              f"{g['baseline_p5_p95'].min():.3f}, worst default {g['logprep_default'].min():.3f} "
+              f"({len(g)} wells)")
+    print(f"all: median baseline {table['baseline_p5_p95'].median():.3f}, "
+          f"median default {table['logprep_default'].median():.3f} ({len(table)} wells)")
+    return 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())
