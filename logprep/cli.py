@@ -40,6 +40,11 @@ def _blocking_options(p: argparse.ArgumentParser, d) -> None:
                    help=f"Vsh at or above which a sample is shale (default: {d.shale_cutoff})")
     g.add_argument("--min-bed", dest="min_bed_m", type=float, metavar="M",
                    help=f"minimum layer thickness in metres; thinner beds merge (default: {d.min_bed_m})")
+    g.add_argument("--changepoint-penalty", dest="changepoint_penalty", type=float, metavar="X",
+                   help="changepoint blocking: cost of one change of mean Vsh as a multiple of "
+                        f"noise variance x ln(samples); larger gives fewer layers (default: {d.changepoint_penalty})")
+    g.add_argument("--honour-tops", dest="honour_tops", action=argparse.BooleanOptionalAction,
+                   help="force a layer boundary at every formation top from --tops (default: off)")
 
 
 def _fault_options(p: argparse.ArgumentParser, d) -> None:

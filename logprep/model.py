@@ -85,7 +85,9 @@ class Layers:
     ``top_m[i+1] == base_m[i]``; ``vsh`` is the thickness-weighted mean clay volume of each
     layer (fraction 0-1); ``lithology`` holds names from :data:`LITHOLOGIES`.
     ``filled_fraction`` is the share of each layer's thickness whose Vsh was interpolated
-    across missing samples (0 where every sample was measured).
+    across missing samples (0 where every sample was measured).  ``net_to_gross`` is the
+    share of each layer's thickness in samples classed sand by the cut-offs (NaN where the
+    blocking method did not record it).
     """
 
     top_m: np.ndarray
@@ -93,6 +95,7 @@ class Layers:
     vsh: np.ndarray
     lithology: tuple[str, ...]
     filled_fraction: np.ndarray | None = None
+    net_to_gross: np.ndarray | None = None
 
     def __post_init__(self) -> None:
         object.__setattr__(self, "top_m", _frozen(self.top_m))
@@ -101,8 +104,11 @@ class Layers:
         object.__setattr__(self, "lithology", tuple(self.lithology))
         ff = np.zeros(len(self.top_m)) if self.filled_fraction is None else self.filled_fraction
         object.__setattr__(self, "filled_fraction", _frozen(ff))
+        ntg = np.full(len(self.top_m), np.nan) if self.net_to_gross is None else self.net_to_gross
+        object.__setattr__(self, "net_to_gross", _frozen(ntg))
         n = len(self.top_m)
-        if not (len(self.base_m) == len(self.vsh) == len(self.lithology) == n):
+        if not (len(self.base_m) == len(self.vsh) == len(self.lithology) == n
+                == len(self.filled_fraction) == len(self.net_to_gross)):
             raise ValueError("Layers: arrays must have one entry per layer")
         bad = set(self.lithology) - set(LITHOLOGIES)
         if bad:
@@ -130,5 +136,6 @@ class Layers:
                 "vsh": self.vsh,
                 "lithology": list(self.lithology),
                 "filled_fraction": self.filled_fraction,
+                "net_to_gross": self.net_to_gross,
             }
         )

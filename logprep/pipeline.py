@@ -13,7 +13,7 @@ from pathlib import Path
 import numpy as np
 import pandas as pd
 
-from logprep.blocking import check_cutoffs, fill_gaps, get_blocking_method
+from logprep.blocking import block_with_boundaries, check_cutoffs, fill_gaps, get_blocking_method
 from logprep.capacity import (
     CO2_DENSITY_MODES, ENVELOPE_CLASS_BOUNDS_M, ENVELOPE_CLASS_C, ENVELOPE_SGR_SCALE_PCT,
     capacity_params, depth_datum, seal_capacity_table,
@@ -115,6 +115,12 @@ class ScreenSettings:
         :data:`logprep.vshale.COMBINATIONS` (``gr`` ignores neutron-density).
     washout_in : float
         Caliper over bit size (inches) above which a sample is a washout.
+    changepoint_penalty : float
+        For ``blocking = "changepoint"``: cost of one change of mean Vsh, as a multiple of
+        (noise sd)^2 x ln(samples); 2 matches the Schwarz criterion, larger gives fewer
+        layers (see :func:`logprep.blocking.block_changepoint`).
+    honour_tops : bool
+        Force a layer boundary at every formation top of the well (needs ``tops_file``).
     """
 
     transform: str = "linear"
@@ -151,6 +157,8 @@ class ScreenSettings:
     min_contrast: float = 0.7
     vsh_combine: str = "mean"
     washout_in: float = 1.5
+    changepoint_penalty: float = 2.0
+    honour_tops: bool = False
 
     def __post_init__(self) -> None:
         get_transform(self.transform)
@@ -175,6 +183,9 @@ class ScreenSettings:
             raise SettingsError(f"--throw-max must be > 0 m (got {self.throw_max_m:g})")
         if not 0 <= self.sgr_threshold_pct <= 100:
             raise SettingsError(f"SGR threshold must be within 0-100 % (got {self.sgr_threshold_pct:g})")
+        if not self.changepoint_penalty >= 0:
+            raise SettingsError(
+                f"--changepoint-penalty must be >= 0 (got {self.changepoint_penalty:g})")
         self._check_capacity()
 
     def _check_capacity(self) -> None:
@@ -213,6 +224,11 @@ class ScreenSettings:
             v = getattr(self, name)
             if v is not None and not v >= 0:
                 raise SettingsError(f"{name} must be >= 0 m (got {v:g})")
+
+    def blocking_kwargs(self) -> dict:
+        """The keyword arguments every blocking method receives."""
+        return dict(sand_cutoff=self.sand_cutoff, shale_cutoff=self.shale_cutoff,
+                    min_bed_m=self.min_bed_m, changepoint_penalty=self.changepoint_penalty)
 
     def to_dict(self) -> dict:
         return asdict(self)
@@ -393,11 +409,11 @@ def screen_well(
         notes.append(
             f"{int(filled.sum())} GR samples missing or replaced after QC; Vsh interpolated there"
         )
-    method = get_blocking_method(settings.blocking)
-    layers = method(
-        depth, vsh,
-        sand_cutoff=settings.sand_cutoff, shale_cutoff=settings.shale_cutoff,
-        min_bed_m=settings.min_bed_m, filled=filled,
+    forced = picks["top_m"].to_numpy(float) if settings.honour_tops else ()
+    if settings.honour_tops and len(picks) == 0:
+        notes.append("no formation tops for this well; layers not tied to tops")
+    layers = block_with_boundaries(
+        settings.blocking, depth, vsh, forced, filled=filled, **settings.blocking_kwargs()
     )
     windows = sand_windows(layers, settings.throw_max_m)
     windows, note = seal_capacity_step(well, layers, windows, settings)

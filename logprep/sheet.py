@@ -176,7 +176,9 @@ def draw_footer(fig, result) -> None:
         f"{w.depth_unit}   GR curve: {w.gr_mnemonic}   logprep {__version__}\n"
         f"Settings: transform {s.transform}; GR clean {s.gr_clean} = {result.gr_clean_api:.1f} API; "
         f"GR shale {s.gr_shale} = {result.gr_shale_api:.1f} API; cut-offs sand <= {s.sand_cutoff:g}, "
-        f"shale >= {s.shale_cutoff:g}; min bed {s.min_bed_m:g} m; blocking {s.blocking}; "
+        f"shale >= {s.shale_cutoff:g}; min bed {s.min_bed_m:g} m; blocking {s.blocking}"
+        f"{f' (penalty {s.changepoint_penalty:g})' if s.blocking == 'changepoint' else ''}"
+        f"{', tied to tops' if s.honour_tops else ''}; "
         f"throws 0-{s.throw_max_m:g} m; SGR threshold {s.sgr_threshold_pct:g} %."
     )
     if result.notes:
