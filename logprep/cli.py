@@ -9,6 +9,7 @@ import warnings
 from logprep import __version__
 from logprep.blocking import BLOCKING_METHODS
 from logprep.errors import LogprepError
+from logprep.sgr import SGR_FIELD_SOURCES
 from logprep.vshale import TRANSFORMS
 
 EXIT_OK, EXIT_SOME_FAILED, EXIT_USAGE = 0, 1, 2
@@ -54,6 +55,14 @@ def _fault_options(p: argparse.ArgumentParser, d) -> None:
     g.add_argument("--sgr-threshold", dest="sgr_threshold_pct", type=float, metavar="PCT",
                    help=f"SGR (%%) below which a window is flagged; verdict 'seal' from here up "
                         f"(default: {d.sgr_threshold_pct})")
+    g.add_argument("--sgr-field-from", dest="sgr_field_source", choices=list(SGR_FIELD_SOURCES),
+                   help="clay source of the SGR field (sgr_field.npz, triangle diagram): blocked "
+                        f"layers or the continuous Vsh curve (default: {d.sgr_field_source})")
+    g.add_argument("--field-depth-step", dest="field_depth_step_m", type=float, metavar="M",
+                   help="row spacing of the SGR field in metres, rounded to whole log samples "
+                        f"(default: {d.field_depth_step_m})")
+    g.add_argument("--field-throw-step", dest="field_throw_step_m", type=float, metavar="M",
+                   help=f"throw spacing of the SGR field in metres (default: {d.field_throw_step_m})")
 
 
 def _capacity_options(p: argparse.ArgumentParser, d) -> None:

@@ -99,6 +99,30 @@ def layer_index(layers: Layers, depth_m) -> np.ndarray:
     return np.where(inside, i, -1)
 
 
+def sgr_from_cumulative_pct(bounds_m, clay_m, depth_m, throw_m):
+    """Shale gouge ratio (%) from a cumulative clay function, at any points.
+
+    ``C`` is given at ``bounds_m`` (increasing) as ``clay_m`` and is linear in between
+    (piecewise-constant Vsh), as from :func:`cumulative_clay` or
+    :func:`logprep.sgr.cumulative_clay_curve`.  ``SGR = 100 (C(z) - C(z - t)) / t``
+    (Yielding et al. 1997).  Inputs broadcast.  NaN where ``z`` or ``z - t`` leaves
+    ``[bounds_m[0], bounds_m[-1]]``; at ``t = 0`` the limit, 100 x Vsh just above ``z``.
+    A negative throw (reverse fault) takes the slipped interval ``[z, z - t]`` below ``z``.
+    """
+    bounds = np.asarray(bounds_m, float)
+    clay = np.asarray(clay_m, float)
+    z, t = np.broadcast_arrays(np.asarray(depth_m, float), np.asarray(throw_m, float))
+    zt = z - t
+    with np.errstate(invalid="ignore", divide="ignore"):
+        sgr = 100.0 * (np.interp(z, bounds, clay) - np.interp(zt, bounds, clay)) / t
+    if np.any(t == 0):
+        slope = np.diff(clay) / np.diff(bounds)
+        i = np.clip(np.searchsorted(bounds, z, side="left") - 1, 0, len(slope) - 1)
+        sgr = np.where(t == 0, 100.0 * slope[i], sgr)
+    out = (zt < bounds[0]) | (zt > bounds[-1]) | (z < bounds[0]) | (z > bounds[-1])
+    return np.where(out, np.nan, sgr)
+
+
 def sgr_layered_pct(layers: Layers, depth_m, throw_m):
     """Shale gouge ratio (%) at footwall depth ``z`` and throw ``t`` from blocked layers.
 
@@ -107,19 +131,8 @@ def sgr_layered_pct(layers: Layers, depth_m, throw_m):
     NaN where the window leaves the column; at ``t = 0`` the limit, 100 x Vsh just above
     ``z``.
     """
-    z = np.asarray(depth_m, float)
-    t = np.asarray(throw_m, float)
     bounds, clay = cumulative_clay(layers)
-    z, t = np.broadcast_arrays(z, t)
-    zt = z - t
-    with np.errstate(invalid="ignore", divide="ignore"):
-        sgr = 100.0 * (np.interp(z, bounds, clay) - np.interp(zt, bounds, clay)) / t
-    if np.any(t == 0):
-        i = np.searchsorted(layers.base_m, z, side="left")  # layer just above z
-        i = np.clip(i, 0, len(layers) - 1)
-        sgr = np.where(t == 0, 100.0 * layers.vsh[i], sgr)
-    out = (zt < bounds[0]) | (z > bounds[-1]) | (t < 0)
-    return np.where(out, np.nan, sgr)
+    return sgr_from_cumulative_pct(bounds, clay, depth_m, throw_m)
 
 
 def juxtaposition_grid(layers: Layers, depth_m, throw_m) -> np.ndarray:

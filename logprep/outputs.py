@@ -86,6 +86,8 @@ def render_well(result, sheet_builder) -> dict[str, bytes]:
     """Every output file of one well as bytes, rendered in memory first so that a failure
     while drawing leaves nothing half-written."""
     files = {name: csv_bytes(frame) for name, frame in well_tables(result).items()}
+    if getattr(result, "grid", None) is not None:
+        files["sgr_field.npz"] = result.grid.npz_bytes()
     pages = sheet_builder(result)
     files["sheet.pdf"] = pdf_bytes(pages)
     files["sheet.png"] = png_bytes(pages[0])

@@ -27,6 +27,7 @@ from logprep.lasread import read_well, well_curve
 from logprep.model import Layers, WellLog
 from logprep.units import LENGTH_UNITS
 from logprep.qc import REPLACED, QcSettings, any_flag, gr_flags, inches
+from logprep.sgr import SGR_FIELD_SOURCES, SgrField, sgr_field
 from logprep.tops import TOPS_COLUMNS, read_tops, tops_for_well
 from logprep.vshale import (
     density_g_cm3, density_porosity, gamma_ray_index, gas_crossover, get_combination,
@@ -121,6 +122,15 @@ class ScreenSettings:
         layers (see :func:`logprep.blocking.block_changepoint`).
     honour_tops : bool
         Force a layer boundary at every formation top of the well (needs ``tops_file``).
+    sgr_field_source : str
+        Clay source of the SGR field (``sgr_field.npz`` and the triangle diagram), a key of
+        :data:`logprep.sgr.SGR_FIELD_SOURCES`: ``layers`` (blocked column) or ``curve``
+        (continuous Vsh, partial samples weighted by length).
+    field_depth_step_m : float or None
+        Row spacing of the field (m), rounded to a whole number of log samples (at least
+        one); None takes every sample.
+    field_throw_step_m : float
+        Column spacing of the field (m).
     """
 
     transform: str = "linear"
@@ -159,6 +169,9 @@ class ScreenSettings:
     washout_in: float = 1.5
     changepoint_penalty: float = 2.0
     honour_tops: bool = False
+    sgr_field_source: str = "layers"
+    field_depth_step_m: float | None = 0.5
+    field_throw_step_m: float = 1.0
 
     def __post_init__(self) -> None:
         get_transform(self.transform)
@@ -186,6 +199,13 @@ class ScreenSettings:
         if not self.changepoint_penalty >= 0:
             raise SettingsError(
                 f"--changepoint-penalty must be >= 0 (got {self.changepoint_penalty:g})")
+        if self.sgr_field_source not in SGR_FIELD_SOURCES:
+            raise SettingsError(f"unknown SGR field source {self.sgr_field_source!r}; use one of "
+                                f"{', '.join(SGR_FIELD_SOURCES)}")
+        if self.field_depth_step_m is not None and not self.field_depth_step_m > 0:
+            raise SettingsError(f"--field-depth-step must be > 0 m (got {self.field_depth_step_m:g})")
+        if not self.field_throw_step_m > 0:
+            raise SettingsError(f"--field-throw-step must be > 0 m (got {self.field_throw_step_m:g})")
         self._check_capacity()
 
     def _check_capacity(self) -> None:
@@ -269,6 +289,7 @@ class WellScreening:
     picks: pd.DataFrame = field(default_factory=lambda: pd.DataFrame(columns=PICK_COLUMNS))
     gr_clean_line: np.ndarray | None = None
     gr_shale_line: np.ndarray | None = None
+    grid: SgrField | None = None
 
     @property
     def min_window_sgr_pct(self) -> float:
@@ -416,6 +437,11 @@ def screen_well(
         settings.blocking, depth, vsh, forced, filled=filled, **settings.blocking_kwargs()
     )
     windows = sand_windows(layers, settings.throw_max_m)
+    sgr = sgr_field(
+        layers, depth, vsh, throw_max_m=settings.throw_max_m,
+        throw_step_m=settings.field_throw_step_m, depth_step_m=settings.field_depth_step_m,
+        source=settings.sgr_field_source,
+    )
     windows, note = seal_capacity_step(well, layers, windows, settings)
     notes.append(note)
     return WellScreening(
@@ -423,7 +449,7 @@ def screen_well(
         gr_clean_api=cv.gr_clean_api, gr_shale_api=cv.gr_shale_api, layers=layers,
         windows=windows, tops=picks, notes=tuple(notes), vsh_gr=cv.vsh_gr, vsh_nd=cv.vsh_nd,
         qc_flags=cv.qc_flags, picks=cv.picks, gr_clean_line=cv.gr_clean_line,
-        gr_shale_line=cv.gr_shale_line,
+        gr_shale_line=cv.gr_shale_line, grid=sgr,
     )
 
 

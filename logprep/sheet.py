@@ -13,25 +13,15 @@ from __future__ import annotations
 
 from typing import Callable
 
+import matplotlib
 import numpy as np
-from matplotlib.colors import BoundaryNorm, ListedColormap
 from matplotlib.figure import Figure
 from matplotlib.patches import Patch
 
 from logprep import __version__
 from logprep.caution import CAUTION
-from logprep.juxtaposition import JUXTAPOSITION_CLASSES
 
 LITHOLOGY_COLOURS = {"sand": "#F0E442", "heterolith": "#E69F00", "shale": "#8C8C8C"}
-CLASS_COLOURS = {
-    0: "#FFFFFF",
-    1: "#D55E00",  # sand/sand: where the sands can communicate across the fault
-    2: "#F5B47A",
-    3: "#56B4E9",
-    4: "#CC79A7",
-    5: "#009E73",
-    6: "#D9D9D9",
-}
 SGR_CONTOURS_PCT = (10, 20, 30, 40, 60)
 PAGE_SIZE_IN = (16.5, 11.7)  # A3 landscape
 ROWS_PAGE1 = 22
@@ -81,43 +71,116 @@ def draw_layer_track(ax, result) -> None:
     ax.tick_params(labelleft=False)
 
 
-def _window_label_point(w):
-    tmid = 0.5 * (w.throw_min_m + w.throw_max_m)
-    zmid = 0.5 * (max(w.footwall_top_m, w.hangingwall_top_m + tmid)
-                  + min(w.footwall_base_m, w.hangingwall_base_m + tmid))
-    return tmid, zmid
+SGR_CMAP = "cividis"  # perceptually uniform and colour-blind safe
+NO_DATA = "#F2F2F2"
+WINDOW_INK = "#D55E00"  # Okabe & Ito vermillion: sand-sand window outlines
+MAX_DRAWN_ROWS = 700
+CLASS_HATCHES = {1: "////", 2: "...."}
+"""Juxtaposition classes hatched on the triangle diagram (codes of
+:data:`logprep.juxtaposition.JUXTAPOSITION_CLASSES`): sand/sand and sand/heterolith."""
+
+
+def sgr_levels(threshold_pct: float) -> list[float]:
+    """SGR contour levels: the screening threshold and the fixed levels."""
+    return sorted({float(threshold_pct), *map(float, SGR_CONTOURS_PCT)})
+
+
+def draw_field(ax, grid, *, threshold_pct: float, throw_max_m: float, windows=None,
+               labelled=(), hw_shift_m: float = 0.0):
+    """Triangle diagram from an :class:`~logprep.sgr.SgrField`: SGR as colour, contours at
+    the screening threshold (bold) and fixed levels, the juxtaposition classes of
+    :data:`CLASS_HATCHES` hatched, and the sand-sand windows of ``windows``
+    outlined (the rows in ``labelled``, numbered from 1, thicker and numbered).
+    ``hw_shift_m`` converts a window's hanging-wall depths into the footwall frame.
+    Returns the SGR image (for a colour bar)."""
+    from logprep.sgr import contact_polygon
+
+    step = max(1, int(np.ceil(grid.depth_m.size / MAX_DRAWN_ROWS)))
+    depth, throw = grid.depth_m[::step], grid.throw_m
+    sgr = np.asarray(grid.sgr_pct[::step], float)
+    jux = grid.juxtaposition[::step]
+    dt = throw[1] - throw[0] if throw.size > 1 else 1.0
+    dz = depth[1] - depth[0] if depth.size > 1 else 1.0
+    cmap = matplotlib.colormaps[SGR_CMAP].with_extremes(bad=NO_DATA)
+    im = ax.imshow(np.ma.masked_invalid(sgr), cmap=cmap, vmin=0, vmax=100, aspect="auto",
+                   interpolation="nearest", origin="upper", rasterized=True,
+                   extent=(throw[0] - dt / 2, throw[-1] + dt / 2, depth[-1] + dz / 2, depth[0] - dz / 2))
+    for code, hatch in CLASS_HATCHES.items():
+        cf = ax.contourf(throw, depth, (jux == code).astype(np.float32), levels=[0.5, 1.5],
+                         colors="none", hatches=[hatch])
+        cf.set_edgecolor("#FFFFFF")
+        cf.set_linewidth(0)
+    levels = sgr_levels(threshold_pct)
+    widths = [1.6 if lv == threshold_pct else 0.6 for lv in levels]
+    cs = ax.contour(throw, depth, sgr, levels=levels, colors=INK, linewidths=widths)
+    ax.clabel(cs, fmt="%g%%", fontsize=6)
+    if windows is not None and len(windows):
+        cross = windows[~windows["self_juxtaposed"]]
+        for k, w in zip(cross.index, cross.itertuples()):
+            poly = contact_polygon(w.footwall_top_m, w.footwall_base_m,
+                                   w.hangingwall_top_m - hw_shift_m,
+                                   w.hangingwall_base_m - hw_shift_m, 0.0, throw_max_m)
+            if len(poly) < 3:
+                continue
+            strong = (k + 1) in labelled
+            ax.fill(poly[:, 0], poly[:, 1], fill=False, ec=WINDOW_INK, lw=1.1 if strong else 0.5,
+                    ls="-" if strong else ":")
+        for k in labelled:
+            poly = contact_polygon(*(windows.iloc[k - 1][c] - (hw_shift_m if "hanging" in c else 0.0)
+                                     for c in ("footwall_top_m", "footwall_base_m",
+                                               "hangingwall_top_m", "hangingwall_base_m")),
+                                   0.0, throw_max_m)
+            if len(poly) < 3:
+                continue
+            tmid, zmid = poly.mean(axis=0)
+            ax.text(tmid, zmid, str(k), fontsize=6.5, ha="center", va="center",
+                    bbox=dict(boxstyle="round,pad=0.15", fc="white", ec=WINDOW_INK, lw=0.6))
+    ax.set_xlim(min(0.0, throw[0]), throw_max_m)
+    ax.set_ylim(depth[-1], depth[0])
+    return im
+
+
+def draw_sgr_colourbar(ax, im, label="SGR (%)"):
+    cax = ax.inset_axes([0.62, 1.015, 0.38, 0.018])
+    cb = ax.figure.colorbar(im, cax=cax, orientation="horizontal")
+    cb.ax.tick_params(labelsize=6, length=2, pad=1)
+    cb.ax.xaxis.set_ticks_position("top")
+    cb.set_label(label, fontsize=6.5, labelpad=1)
+    cb.ax.xaxis.set_label_position("top")
 
 
 def draw_triangle(ax, result, labelled=()) -> None:
-    """Triangle diagram: footwall depth against throw, coloured by juxtaposition class,
-    SGR contours, and the window numbers in ``labelled`` (row numbers from 1)."""
-    depth, throw, sgr, jux = result.grids()
-    cmap = ListedColormap([CLASS_COLOURS[k] for k in sorted(CLASS_COLOURS)])
-    norm = BoundaryNorm(np.arange(-0.5, len(CLASS_COLOURS)), cmap.N)
-    ax.pcolormesh(throw, depth, jux, cmap=cmap, norm=norm, shading="nearest", rasterized=True)
-    cs = ax.contour(throw, depth, sgr, levels=SGR_CONTOURS_PCT, colors=INK, linewidths=0.6)
-    ax.clabel(cs, fmt="SGR %d%%", fontsize=6)
-    ax.set_xlim(0, result.settings.throw_max_m)
+    """Triangle diagram: footwall depth against throw, the SGR field coloured, contours at
+    the screening threshold and fixed levels, juxtaposition classes, and the sand-sand
+    windows outlined (``labelled`` row numbers from 1 numbered)."""
+    s = result.settings
+    im = draw_field(ax, result.grid, threshold_pct=s.sgr_threshold_pct, throw_max_m=s.throw_max_m,
+                    windows=result.windows, labelled=labelled)
+    draw_sgr_colourbar(ax, im)
     ax.set_xlabel("Throw (m); normal fault, hanging wall down")
-    ax.set_title("Triangle diagram: juxtaposition class, SGR contours, numbered sand-sand windows",
-                 fontsize=9, loc="left")
+    ax.set_title(f"Triangle diagram: SGR from {result.grid.source}, sand-sand windows outlined",
+                 fontsize=9, loc="left", pad=14)
     ax.tick_params(labelleft=False)
-    rows = result.windows
-    for k in labelled:
-        tmid, zmid = _window_label_point(rows.iloc[k - 1])
-        ax.text(tmid, zmid, str(k), fontsize=6.5, ha="center", va="center",
-                bbox=dict(boxstyle="round,pad=0.15", fc="white", ec="#D55E00", lw=0.6))
 
 
 def draw_legend(ax, result) -> None:
     """Class and lithology keys and a one-paragraph summary of the well."""
     ax.set_axis_off()
-    handles = [Patch(facecolor=CLASS_COLOURS[k], edgecolor="#666666", label=JUXTAPOSITION_CLASSES[k])
-               for k in sorted(CLASS_COLOURS) if k != 0]
+    from matplotlib.lines import Line2D
+
+    th = result.settings.sgr_threshold_pct
+    handles = [
+        Patch(facecolor="#7F7F7F", edgecolor="#FFFFFF", hatch="////", label="sand/sand juxtaposition"),
+        Patch(facecolor="#7F7F7F", edgecolor="#FFFFFF", hatch="....", label="sand/heterolith juxtaposition"),
+        Line2D([], [], color=INK, lw=1.6, label=f"SGR {th:g} % (screening threshold)"),
+        Line2D([], [], color=INK, lw=0.6, label="SGR contours (%)"),
+        Patch(facecolor="none", edgecolor=WINDOW_INK, label="sand-sand window (numbered: in table)"),
+        Patch(facecolor=NO_DATA, edgecolor="#666666", label="slipped interval leaves the log"),
+    ]
     handles += [Patch(facecolor=c, edgecolor="#666666", label=f"layer: {n}")
                 for n, c in LITHOLOGY_COLOURS.items()]
     ax.legend(handles=handles, loc="upper left", ncol=2, fontsize=8, frameon=False,
-              title="Juxtaposition (footwall/hanging wall) and layers", title_fontsize=9)
+              title="Triangle diagram and layers", title_fontsize=9)
     L = result.layers
     sand = np.array(L.lithology) == "sand"
     cross = result.windows[~result.windows["self_juxtaposed"]]

@@ -1,0 +1,115 @@
+"""Benchmark: the SGR field of a 3,000 m column at 0.1524 m sampling, throws 0-300 m in
+0.5 m steps (about 19,700 x 601 = 11.8 M cells, 47 MB as float32).
+
+Prints the time of :func:`logprep.sgr.sgr_field_pct` (curve and layers routes) as ratios
+against baselines measured in the same run:
+
+(a) memory floor: one cumulative sum plus one write of a float32 array of the grid's size
+    (numpy); target: field / floor <= 3;
+(b) a direct per-point summation (clay of every sample in the window, partial samples
+    weighted by length) on a small subgrid, scaled to the full grid by cells;
+(c) linearity: the field on a quarter of the cells (half the depth, half the throws);
+    target: time(4x cells) / time(1x cells) <= 5.
+
+Run: ``python bench/bench_sgr_field.py``.  Timings are the best of several repeats.
+"""
+
+from __future__ import annotations
+
+import time
+
+import numpy as np
+
+from logprep.blocking import block_cutoff, sample_edges_m
+from logprep.juxtaposition import cumulative_clay
+from logprep.sgr import cumulative_clay_curve, sgr_field_pct, throw_axis_m
+
+STEP_M = 0.1524
+COLUMN_M = 3000.0
+REPEATS = 5
+
+
+def best(fn, repeats=REPEATS):
+    times = []
+    for _ in range(repeats):
+        t0 = time.perf_counter()
+        fn()
+        times.append(time.perf_counter() - t0)
+    return min(times)
+
+
+def blocky_column(random_state=20240601):
+    rng = np.random.default_rng(random_state)
+    n = int(round(COLUMN_M / STEP_M))
+    depth = 1000.0 + STEP_M * np.arange(n)
+    beds = rng.integers(5, 200, size=n)  # bed lengths in samples
+    vals = rng.uniform(0, 1, size=n)
+    vsh = np.repeat(vals, beds)[:n]
+    vsh = np.clip(vsh + rng.normal(0, 0.03, n), 0, 1)
+    return depth, vsh
+
+
+def direct_sgr_pct(edges, vsh, z, t):
+    """Per-point reference: sum Vsh x (length of each sample interval inside [z - t, z])."""
+    lo, hi = z - t, z
+    if lo < edges[0] or hi > edges[-1]:
+        return np.nan
+    i0 = np.searchsorted(edges, lo, side="right") - 1
+    i1 = np.searchsorted(edges, hi, side="left")
+    seg_lo = np.maximum(edges[i0:i1], lo)
+    seg_hi = np.minimum(edges[i0 + 1:i1 + 1], hi)
+    return 100.0 * float(np.sum(vsh[i0:i1] * (seg_hi - seg_lo))) / t
+
+
+def main() -> None:
+    depth, vsh = blocky_column()
+    throw = throw_axis_m(300.0, 0.5)
+    bounds, clay = cumulative_clay_curve(depth, vsh)
+    layers = block_cutoff(depth, vsh, sand_cutoff=0.35, shale_cutoff=0.65, min_bed_m=1.0)
+    lb, lc = cumulative_clay(layers)
+    nz, nt = bounds.size, throw.size
+    cells = nz * nt
+    print(f"grid: {nz} depths x {nt} throws = {cells / 1e6:.1f} M cells "
+          f"({cells * 4 / 1e6:.0f} MB float32); {len(layers)} layers")
+
+    grid = np.ones((nt, nz), dtype=np.float32)
+    out = np.empty_like(grid)
+
+    def floor():
+        np.cumsum(grid, axis=1, out=out)
+        out.fill(0.0)
+
+    t_floor = best(floor)
+    del grid, out
+    t_curve = best(lambda: sgr_field_pct(bounds, clay, STEP_M, throw))
+    t_layers = best(lambda: sgr_field_pct(lb, lc, STEP_M, throw))
+
+    # linearity: a quarter of the cells (upper half of the column, every other throw)
+    half = nz // 2
+    b4, c4 = bounds[:half + 1], clay[:half + 1]
+    t_quarter = best(lambda: sgr_field_pct(b4, c4, STEP_M, throw[::2]))
+
+    # direct summation on a small subgrid, scaled by cells; also checks agreement
+    rng = np.random.default_rng(7)
+    zi = rng.integers(0, nz, 60)
+    tj = rng.integers(1, nt, 60)
+    dz, field = sgr_field_pct(bounds, clay, STEP_M, throw)
+    t0 = time.perf_counter()
+    ref = np.array([[direct_sgr_pct(bounds, vsh, dz[i], throw[j]) for j in tj] for i in zi])
+    t_direct_sub = time.perf_counter() - t0
+    t_direct = t_direct_sub / ref.size * cells
+    got = field[zi][:, tj]
+    both = np.isfinite(ref)
+    assert np.array_equal(both, np.isfinite(got)), "NaN pattern differs from direct summation"
+    err = float(np.max(np.abs(got[both] - ref[both])))
+
+    print(f"memory floor (cumsum + write)  {t_floor * 1e3:8.1f} ms")
+    print(f"SGR field, curve route         {t_curve * 1e3:8.1f} ms   ratio to floor {t_curve / t_floor:5.2f} (target <= 3)")
+    print(f"SGR field, layers route        {t_layers * 1e3:8.1f} ms   ratio to floor {t_layers / t_floor:5.2f} (target <= 3)")
+    print(f"direct summation, scaled       {t_direct * 1e3:8.0f} ms   speed-up {t_direct / t_curve:7.0f}x "
+          f"(subgrid {ref.size} points, max |difference| {err:.2e} %)")
+    print(f"linearity: 4x cells / 1x cells {t_curve / t_quarter:5.2f} (target <= 5)")
+
+
+if __name__ == "__main__":
+    main()
