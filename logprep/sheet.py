@@ -193,24 +193,37 @@ def draw_legend(ax, result) -> None:
         f"{len(low)} reach SGR below {result.settings.sgr_threshold_pct:g} %; "
         f"lowest window SGR {result.min_window_sgr_pct:.1f} %",
     ]
+    if "verdict" in cross:
+        counts = cross["verdict"].value_counts()
+        lines.append("verdicts: " + ", ".join(f"{counts.get(v, 0)} {v}" for v in ("leak", "uncertain", "seal"))
+                     + f" (leak below SGR {result.settings.sgr_leak_pct:g} %, seal from "
+                     f"{result.settings.sgr_threshold_pct:g} %)")
+        lines.append("column heights against throw: page 2")
     ax.text(0, 0.0, "\n".join(lines), fontsize=8.5, va="bottom")
 
 
-TABLE_HEAD = ["#", "footwall sand\ntop-base (m)", "hanging-wall sand\ntop-base (m)",
-              "throw\nrange (m)", "SGR\nmin %", "SGR\nmax %", "note"]
+TABLE_HEAD = ["#", "footwall\nsand (m)", "hanging-wall\nsand (m)",
+              "throw\nrange (m)", "SGR\nmin %", "SGR\nmax %", "oil\ncolumn", "verdict", "note"]
+TABLE_WIDTHS = [0.05, 0.17, 0.16, 0.13, 0.07, 0.07, 0.09, 0.1, 0.16]
+VERDICT_COLOURS = {"leak": "#F6C9A8", "uncertain": "#FBE8A6", "seal": "#CFE8F7"}
+"""Cell shades of the verdict column (light tints of Okabe & Ito vermilion, yellow, sky blue)."""
 
 
-def window_rows(windows, numbers, threshold_pct) -> list[list[str]]:
-    """Table rows for the windows with the given row numbers (from 1)."""
+def window_rows(windows, numbers, threshold_pct, length_unit: str = "m") -> list[list[str]]:
+    """Table rows for the windows with the given row numbers (from 1).  The oil column
+    height is shown in ``length_unit`` (``m`` or ``ft``)."""
+    per_m = 1.0 if length_unit == "m" else 1.0 / 0.3048
     rows = []
     for k in numbers:
         w = windows.iloc[k - 1]
         note = "sand against itself" if w.self_juxtaposed else (
             f"SGR < {threshold_pct:g} %" if w.sgr_min_pct < threshold_pct else "")
+        col = w.get("column_oil_m", np.nan) * per_m
         rows.append([str(k), f"{w.footwall_top_m:.1f}-{w.footwall_base_m:.1f}",
                      f"{w.hangingwall_top_m:.1f}-{w.hangingwall_base_m:.1f}",
                      f"{w.throw_min_m:.1f}-{w.throw_max_m:.1f}", f"{w.sgr_min_pct:.1f}",
-                     f"{w.sgr_max_pct:.1f}", note])
+                     f"{w.sgr_max_pct:.1f}", f"{col:.0f} {length_unit}" if np.isfinite(col) else "",
+                     str(w.get("verdict", "")), note])
     return rows
 
 
@@ -221,14 +234,16 @@ def draw_window_table(ax, rows, title) -> None:
         ax.text(0, 0.95, "No sand-sand windows between different sands.", va="top", fontsize=9)
         return
     table = ax.table(cellText=rows, colLabels=TABLE_HEAD, loc="upper left", cellLoc="center",
-                     colWidths=[0.06, 0.19, 0.19, 0.15, 0.09, 0.09, 0.2])
+                     colWidths=TABLE_WIDTHS)
     table.auto_set_font_size(False)
     table.set_fontsize(7.5)
-    for (r, _c), cell in table.get_celld().items():
+    for (r, c), cell in table.get_celld().items():
         cell.set_edgecolor("#BBBBBB")
         cell.set_height(0.042 if r == 0 else 0.026)
         if r == 0:
             cell.set_facecolor("#EEEEEE")
+        elif c == TABLE_HEAD.index("verdict"):
+            cell.set_facecolor(VERDICT_COLOURS.get(rows[r - 1][c], "white"))
 
 
 def draw_footer(fig, result) -> None:
@@ -282,7 +297,8 @@ def overview_page(result) -> Figure:
     if n_cross > len(numbers):
         title += f" ({len(numbers)} of {n_cross}; all in the table overleaf)"
     draw_window_table(fig.add_subplot(right[1]),
-                      window_rows(result.windows, numbers, result.settings.sgr_threshold_pct),
+                      window_rows(result.windows, numbers, result.settings.sgr_threshold_pct,
+                                  result.settings.length_unit),
                       title)
     draw_footer(fig, result)
     return fig
@@ -302,14 +318,22 @@ def window_table_pages(result) -> list[Figure]:
                       x=0.015, ha="left", fontsize=13, fontweight="bold")
         ax = page.add_axes([0.03, 0.15, 0.6, 0.78])
         chunk = numbers[start:start + ROWS_PER_PAGE]
-        draw_window_table(ax, window_rows(w, chunk, result.settings.sgr_threshold_pct),
+        draw_window_table(ax, window_rows(w, chunk, result.settings.sgr_threshold_pct,
+                                          result.settings.length_unit),
                           f"rows {chunk[0]}-{chunk[-1]} of {len(w)}")
         draw_footer(page, result)
         pages.append(page)
     return pages
 
 
-EXTRA_PAGES: list[Callable[[object], list[Figure]]] = [window_table_pages]
+def capacity_pages(result) -> list[Figure]:
+    """The seal-capacity page (drawn by :mod:`logprep.sheet_capacity`)."""
+    from logprep.sheet_capacity import seal_capacity_page
+
+    return [seal_capacity_page(result)]
+
+
+EXTRA_PAGES: list[Callable[[object], list[Figure]]] = [capacity_pages, window_table_pages]
 """Functions ``result -> list of Figures`` appended after page 1, in order."""
 
 
