@@ -15,8 +15,7 @@ import pandas as pd
 
 from logprep.blocking import block_with_boundaries, check_cutoffs, fill_gaps, get_blocking_method
 from logprep.capacity import (
-    CO2_DENSITY_MODES, ENVELOPE_CLASS_BOUNDS_M, ENVELOPE_CLASS_C, ENVELOPE_SGR_SCALE_PCT,
-    capacity_params, depth_datum, seal_capacity_table,
+    CO2_DENSITY_MODES, CapacityParams, capacity_params, depth_datum, seal_capacity_table,
 )
 from logprep.errors import SettingsError
 from logprep.juxtaposition import juxtaposition_grid, sand_windows, sgr_layered_pct
@@ -42,6 +41,9 @@ def parse_number_list(value, name: str) -> tuple[float, ...]:
         return tuple(float(v) for v in items)
     except (TypeError, ValueError):
         raise SettingsError(f"{name}: expected comma-separated numbers (got {value!r})") from None
+
+
+_CAP = CapacityParams()  # seal-capacity defaults live in one place
 
 
 @dataclass(frozen=True)
@@ -145,21 +147,21 @@ class ScreenSettings:
     gr_curve: str | None = None
     depth_unit: str | None = None
     tops_file: str | None = None
-    brine_density_kgm3: float = 1050.0
-    oil_density_kgm3: float = 750.0
-    gas_density_kgm3: float = 250.0
-    co2_density_kgm3: float = 700.0
-    co2_density_mode: str = "fixed"
-    surface_temp_c: float = 10.0
-    geothermal_gradient_c_per_km: float = 30.0
+    brine_density_kgm3: float = _CAP.rho_brine_kgm3
+    oil_density_kgm3: float = _CAP.rho_oil_kgm3
+    gas_density_kgm3: float = _CAP.rho_gas_kgm3
+    co2_density_kgm3: float = _CAP.rho_co2_kgm3
+    co2_density_mode: str = _CAP.co2_density_mode
+    surface_temp_c: float = _CAP.surface_temp_c
+    geothermal_gradient_c_per_km: float = _CAP.geothermal_gradient_c_per_km
     max_burial_m: float | None = None
-    envelope_sgr_scale_pct: float = ENVELOPE_SGR_SCALE_PCT
-    envelope_class_bounds_m: tuple[float, ...] = ENVELOPE_CLASS_BOUNDS_M
-    envelope_class_c: tuple[float, ...] = ENVELOPE_CLASS_C
-    sgr_leak_pct: float = 15.0
+    envelope_sgr_scale_pct: float = _CAP.sgr_scale_pct
+    envelope_class_bounds_m: tuple[float, ...] = _CAP.class_bounds_m
+    envelope_class_c: tuple[float, ...] = _CAP.class_c
+    sgr_leak_pct: float = _CAP.leak_below_pct
     length_unit: str = "m"
-    cell_length_m: float = 100.0
-    matrix_perm_md: float = 100.0
+    cell_length_m: float = _CAP.cell_length_m
+    matrix_perm_md: float = _CAP.matrix_perm_md
     faulting_depth_m: float | None = None
     zoning: str = "auto"
     zone_min_m: float = 200.0
