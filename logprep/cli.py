@@ -109,7 +109,29 @@ def _capacity_options(p: argparse.ArgumentParser, d) -> None:
                    help="depth at the time of faulting, for the Sperrevik permeability (default: burial depth)")
 
 
-SETTINGS_OPTION_GROUPS = [_clay_options, _blocking_options, _fault_options, _capacity_options]
+def _clay_quality_options(p: argparse.ArgumentParser, d) -> None:
+    from logprep.endpoints import ZONINGS
+    from logprep.vshale import COMBINATIONS
+
+    g = p.add_argument_group("clay volume: zones, neutron-density, GR checks")
+    g.add_argument("--zoning", dest="zoning", choices=list(ZONINGS),
+                   help="zones for the clean/shale picks: auto = tops if the well has them, else "
+                        f"steps of the GR baseline; bit-size changes always cut (default: {d.zoning})")
+    g.add_argument("--zone-min", dest="zone_min_m", type=float, metavar="M",
+                   help=f"shortest zone made from GR baseline steps, metres (default: {d.zone_min_m})")
+    g.add_argument("--zone-step", dest="zone_step_api", type=float, metavar="API",
+                   help=f"least GR baseline step between such zones (default: {d.zone_step_api})")
+    g.add_argument("--min-contrast", dest="min_contrast", type=float, metavar="FRACTION",
+                   help="zone contrast, as a fraction of the well's, below which a zone is "
+                        f"treated as all shale or all sand (default: {d.min_contrast})")
+    g.add_argument("--vsh-combine", dest="vsh_combine", choices=list(COMBINATIONS),
+                   help="join GR and neutron-density Vsh: mean, min, gr (GR only), nd "
+                        f"(neutron-density where usable) (default: {d.vsh_combine})")
+    g.add_argument("--washout", dest="washout_in", type=float, metavar="INCHES",
+                   help=f"caliper over bit size that flags a washout (default: {d.washout_in})")
+
+
+SETTINGS_OPTION_GROUPS = [_clay_options, _clay_quality_options, _blocking_options, _fault_options, _capacity_options]
 """Each adds one group of options whose ``dest`` is a :class:`ScreenSettings` field and
 whose default is None (not given); add a function here for a new group."""
 

@@ -15,6 +15,8 @@ from matplotlib.backends.backend_pdf import PdfPages
 
 from logprep.errors import OutputError
 from logprep.juxtaposition import WINDOW_COLUMNS
+from logprep.lasexport import las_bytes
+from logprep.qc import any_flag, layer_fraction, qc_table
 
 SUMMARY_COLUMNS = ["well", "source", "status", "message", "layers", "sand_sand_windows",
                    "min_window_sgr_pct", "folder"]
@@ -76,9 +78,15 @@ def well_tables(result) -> dict[str, pd.DataFrame]:
     """The machine-readable tables of one well, by file name."""
     windows = result.windows.copy()
     extra = [c for c in windows.columns if c not in WINDOW_COLUMNS]
+    layers = result.layers.to_frame()
+    if result.qc_flags:
+        layers["qc_flagged_fraction"] = layer_fraction(
+            result.depth_m, any_flag(result.qc_flags), result.layers.top_m, result.layers.base_m)
     return {
-        "layers.csv": result.layers.to_frame(),
+        "layers.csv": layers,
         "juxtapositions.csv": windows[WINDOW_COLUMNS + extra],
+        "qc.csv": qc_table(result.depth_m, result.qc_flags),
+        "picks.csv": result.picks,
     }
 
 
@@ -91,6 +99,7 @@ def render_well(result, sheet_builder) -> dict[str, bytes]:
     pages = sheet_builder(result)
     files["sheet.pdf"] = pdf_bytes(pages)
     files["sheet.png"] = png_bytes(pages[0])
+    files["curves.las"] = las_bytes(result)
     return files
 
 

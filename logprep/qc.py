@@ -210,3 +210,14 @@ def qc_table(depth_m, flags: dict[str, np.ndarray]) -> pd.DataFrame:
             top, base = depth[a], depth[b - 1] + step
             rows.append((name, top, base, base - top, b - a, meaning, action))
     return pd.DataFrame(rows, columns=QC_TABLE_COLUMNS)
+
+
+def layer_fraction(depth_m, mask, top_m, base_m) -> np.ndarray:
+    """Share of each layer's samples (depth in [top, base)) where ``mask`` is True."""
+    depth = np.asarray(depth_m, dtype=float)
+    mask = np.asarray(mask, dtype=bool)
+    k = np.searchsorted(np.asarray(top_m, dtype=float), depth, side="right") - 1
+    inside = (k >= 0) & (depth < np.asarray(base_m, dtype=float)[np.clip(k, 0, None)])
+    n = np.bincount(k[inside], minlength=len(top_m)).astype(float)
+    hit = np.bincount(k[inside & mask], minlength=len(top_m)).astype(float)
+    return np.divide(hit, n, out=np.zeros(len(top_m)), where=n > 0)

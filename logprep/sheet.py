@@ -30,16 +30,38 @@ INK = "#222222"
 
 
 # ----------------------------------------------------------------------------- panels
+QC_COLOURS = {
+    "missing": "#999999", "null_gap": "#555555", "clipped": "#D55E00", "negative": "#CC79A7",
+    "implausible": "#CC79A7", "spike": "#CC79A7", "washout": "#0072B2", "gas_crossover": "#009E73",
+}
+"""Marker colour of each QC flag on the sheet (Okabe & Ito 2008 palette and greys)."""
+
+
 def draw_gr_track(ax, result) -> None:
-    """GR with the clean and shale lines used."""
+    """GR with the clean and shale lines of each zone, zone boundaries, and QC flags as
+    coloured ticks along the right edge."""
     ax.plot(result.gr_api, result.depth_m, color=INK, lw=0.6)
-    ax.axvline(result.gr_clean_api, color="#0072B2", ls="--", lw=1,
-               label=f"clean {result.gr_clean_api:.0f}")
-    ax.axvline(result.gr_shale_api, color="#D55E00", ls="--", lw=1,
-               label=f"shale {result.gr_shale_api:.0f}")
-    ax.set_xlabel(f"GR ({result.well.gr_mnemonic}), API")
+    if result.gr_clean_line is not None:
+        ax.plot(result.gr_clean_line, result.depth_m, color="#0072B2", ls="--", lw=1,
+                label="clean line per zone")
+        ax.plot(result.gr_shale_line, result.depth_m, color="#D55E00", ls="--", lw=1,
+                label="shale line per zone")
+        for top in result.picks["top_m"].iloc[1:]:
+            ax.axhline(top, color="#999999", lw=0.6, ls=":")
+    else:
+        ax.axvline(result.gr_clean_api, color="#0072B2", ls="--", lw=1,
+                   label=f"clean {result.gr_clean_api:.0f}")
+        ax.axvline(result.gr_shale_api, color="#D55E00", ls="--", lw=1,
+                   label=f"shale {result.gr_shale_api:.0f}")
+    trans = ax.get_yaxis_transform()
+    for name, mask in result.qc_flags.items():
+        if np.any(mask):
+            ax.scatter(np.full(int(mask.sum()), 0.97), result.depth_m[mask], s=6, marker="_",
+                       color=QC_COLOURS.get(name, INK), transform=trans,
+                       label=f"QC: {name.replace('_', ' ')}")
+    ax.set_xlabel(f"GR ({result.well.gr_mnemonic}), API; {len(result.picks)} zone(s)")
     ax.set_ylabel("Depth (m, as logged)")
-    ax.legend(loc="lower left", fontsize=6.5, framealpha=0.9)
+    ax.legend(loc="lower left", fontsize=6, framealpha=0.9)
     L = result.layers
     ax.set_ylim(L.base_m[-1], L.top_m[0])
 
@@ -47,7 +69,10 @@ def draw_gr_track(ax, result) -> None:
 def draw_vsh_track(ax, result) -> None:
     """Vsh per sample, the blocked Vsh, the cut-offs, and interpolated stretches."""
     L, s = result.layers, result.settings
-    ax.plot(result.vsh, result.depth_m, color="#777777", lw=0.5, label="Vsh")
+    if result.vsh_nd is not None and np.any(np.isfinite(result.vsh_nd)):
+        ax.plot(result.vsh_nd, result.depth_m, color="#009E73", lw=0.4, alpha=0.7,
+                label="Vsh neutron-density")
+    ax.plot(result.vsh, result.depth_m, color="#777777", lw=0.5, label=f"Vsh ({s.vsh_combine})")
     z = np.column_stack([L.top_m, L.base_m]).ravel()
     ax.plot(np.repeat(L.vsh, 2), z, color="#0072B2", lw=1.2, label="blocked")
     for cut in (s.sand_cutoff, s.shale_cutoff):
@@ -62,10 +87,18 @@ def draw_vsh_track(ax, result) -> None:
 
 
 def draw_layer_track(ax, result) -> None:
-    """The blocked column coloured by lithology."""
+    """The blocked column coloured by lithology; samples with any QC flag are marked
+    by a dark tick in the right third of the column."""
     L = result.layers
     for top, base, lith in zip(L.top_m, L.base_m, L.lithology):
         ax.axhspan(top, base, color=LITHOLOGY_COLOURS[lith], lw=0)
+    if result.qc_flags:
+        bad = np.zeros(result.depth_m.size, dtype=bool)
+        for mask in result.qc_flags.values():
+            bad |= mask
+        if bad.any():
+            ax.scatter(np.full(int(bad.sum()), 0.85), result.depth_m[bad], s=8, marker="_",
+                       color=INK, transform=ax.get_yaxis_transform())
     ax.set_xticks([])
     ax.set_xlabel("Layers")
     ax.tick_params(labelleft=False)
@@ -252,8 +285,10 @@ def draw_footer(fig, result) -> None:
     prov = (
         f"Source: {w.source}   sha256 {w.sha256[:16]}...   WELL '{w.name}'   depth unit as read: "
         f"{w.depth_unit}   GR curve: {w.gr_mnemonic}   logprep {__version__}\n"
-        f"Settings: transform {s.transform}; GR clean {s.gr_clean} = {result.gr_clean_api:.1f} API; "
-        f"GR shale {s.gr_shale} = {result.gr_shale_api:.1f} API; cut-offs sand <= {s.sand_cutoff:g}, "
+        f"Settings: transform {s.transform}; GR clean {s.gr_clean}, shale {s.gr_shale} per zone "
+        f"({len(result.picks)} zone(s), {s.zoning}; whole well {result.gr_clean_api:.1f}-"
+        f"{result.gr_shale_api:.1f} API; picks.csv); Vsh {s.vsh_combine} of GR and neutron-density; "
+        f"QC flags in qc.csv;\n          cut-offs sand <= {s.sand_cutoff:g}, "
         f"shale >= {s.shale_cutoff:g}; min bed {s.min_bed_m:g} m; blocking {s.blocking}"
         f"{f' (penalty {s.changepoint_penalty:g})' if s.blocking == 'changepoint' else ''}"
         f"{', tied to tops' if s.honour_tops else ''}; "
