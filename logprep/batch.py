@@ -6,6 +6,7 @@ from dataclasses import dataclass
 from pathlib import Path
 from typing import Callable, Iterable
 
+from logprep.config import SETTINGS_FILE_NAME, write_settings
 from logprep.errors import LogprepError
 from logprep.outputs import folder_name, render_well, write_summary, write_well
 from logprep.pipeline import ScreenSettings, screen_file
@@ -55,7 +56,8 @@ def screen_paths(
 
     Each file gets its own folder (see :func:`logprep.outputs.folder_name`) holding
     ``layers.csv``, ``juxtapositions.csv``, ``sheet.pdf`` and ``sheet.png``;
-    ``out_dir/summary.csv`` lists every file with ``status`` ``ok`` or ``error``.  A
+    ``out_dir/summary.csv`` lists every file with ``status`` ``ok`` or ``error``, and
+    ``out_dir/logprep-settings.toml`` holds the settings used (see :mod:`logprep.config`).  A
     :class:`LogprepError` for one file is recorded (and passed to ``on_error``) and the
     batch goes on; any other exception is a bug and propagates.
     """
@@ -66,6 +68,7 @@ def screen_paths(
     if not files:
         raise LogprepError(f"no .las files found in {', '.join(map(str, paths))}")
     tops = read_tops(settings.tops_file) if settings.tops_file else None
+    write_settings(out / SETTINGS_FILE_NAME, settings)
     taken: set[str] = set()
     rows: list[dict] = []
     iterator = progress(files) if progress else files

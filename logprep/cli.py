@@ -154,10 +154,26 @@ def _given_settings(args) -> dict:
     return {k: v for k, v in vars(args).items() if k in names and v is not None}
 
 
+def _config_from_args(args) -> tuple[dict, dict]:
+    """Settings and tune ranges from ``--config`` (empty without one)."""
+    from logprep.config import read_config
+
+    return read_config(args.config) if getattr(args, "config", None) else ({}, {})
+
+
 def _settings_from_args(args):
+    """ScreenSettings from defaults, then ``--config``, then the options given."""
     from logprep.pipeline import ScreenSettings
 
-    return ScreenSettings(**_given_settings(args))
+    from_file, _ = _config_from_args(args)
+    return ScreenSettings(**{**from_file, **_given_settings(args)})
+
+
+def _add_config_option(p: argparse.ArgumentParser) -> None:
+    p.add_argument("--config", metavar="FILE.toml",
+                   help="settings file (TOML; keys are the settings' field names); options "
+                        "given on the command line override it. Every run writes the settings "
+                        "it used to logprep-settings.toml in its output folder")
 
 
 def _progress(stream):
@@ -188,6 +204,29 @@ def cmd_screen(args) -> int:
     return EXIT_SOME_FAILED if report.failures else EXIT_OK
 
 
+def cmd_tune(args) -> int:
+    from logprep.tune import DEFAULT_MIN_BEDS_M, DEFAULT_SAND_CUTOFFS, DEFAULT_SHALE_CUTOFFS
+    from logprep.tune import sweep_file, write_sweep
+
+    settings = _settings_from_args(args)
+    _, ranges = _config_from_args(args)
+    for key in ("sand_sweep", "shale_sweep", "bed_sweep"):
+        if getattr(args, key) is not None:
+            ranges[key] = getattr(args, key)
+    sweep = sweep_file(
+        args.well, settings,
+        sand_cutoffs=ranges.get("sand_sweep", DEFAULT_SAND_CUTOFFS),
+        shale_cutoffs=ranges.get("shale_sweep", DEFAULT_SHALE_CUTOFFS),
+        min_beds_m=ranges.get("bed_sweep", DEFAULT_MIN_BEDS_M),
+    )
+    paths = write_sweep(sweep, args.out)
+    t = sweep.table
+    print(f"{sweep.reference.well.name}: {len(t) - 1} settings swept; "
+          f"{int((t['verdicts_flipped'] == 0).sum()) - 1} keep every window verdict of the reference; "
+          f"table {paths['tune.csv']}, figure {paths['tune.pdf']}")
+    return EXIT_OK
+
+
 def build_parser() -> argparse.ArgumentParser:
     parser = argparse.ArgumentParser(
         prog="logprep",
@@ -205,8 +244,31 @@ def build_parser() -> argparse.ArgumentParser:
                    help="LAS files or folders (default: the bundled example logs)")
     p.add_argument("--out", default="screening", metavar="DIR",
                    help="output folder (default: ./%(default)s)")
+    _add_config_option(p)
     _add_screen_options(p)
     p.set_defaults(func=cmd_screen)
+
+    p = sub.add_parser(
+        "tune", help="sweep the blocking cut-offs of one well and show where verdicts flip",
+        description="Block one well at every combination of sand cut-off, shale cut-off and "
+                    "minimum bed thickness, and record per setting the sands, net-to-gross, "
+                    "windows, lowest window SGR and each window's seal / leak verdict against "
+                    "the reference (the settings given). Writes tune.csv, tune-windows.csv, "
+                    "tune.pdf, tune.png and logprep-settings.toml to --out. Ranges are "
+                    "'a,b,c' or 'start:stop:step'.",
+    )
+    p.add_argument("well", metavar="WELL.las", help="the LAS file to sweep")
+    p.add_argument("--out", default="tuning", metavar="DIR",
+                   help="output folder (default: ./%(default)s)")
+    p.add_argument("--sand-sweep", dest="sand_sweep", metavar="RANGE",
+                   help="sand cut-offs to try (default: 0.2:0.5:0.05)")
+    p.add_argument("--shale-sweep", dest="shale_sweep", metavar="RANGE",
+                   help="shale cut-offs to try (default: 0.5:0.8:0.05)")
+    p.add_argument("--bed-sweep", dest="bed_sweep", metavar="RANGE",
+                   help="minimum bed thicknesses to try, metres (default: 0.5,1,2,4)")
+    _add_config_option(p)
+    _add_screen_options(p)
+    p.set_defaults(func=cmd_tune)
     return parser
 
 
