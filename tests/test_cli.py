@@ -7,6 +7,7 @@ real LAS files through lasio, and check the written PDF/PNG/CSV files.
 import shutil
 import subprocess
 import sys
+from pathlib import Path
 
 import numpy as np
 import pandas as pd
@@ -126,8 +127,9 @@ def test_usage_errors_exit_2(args, capsys, tmp_path):
 
 
 def test_console_script_version_and_default_run(tmp_path):
-    exe = shutil.which("logprep")
-    cmd = [exe] if exe else [sys.executable, "-m", "logprep.cli"]
+    # the console script installed beside this interpreter (not another one on PATH)
+    exe = Path(sys.executable).with_name("logprep")
+    cmd = [str(exe)] if exe.exists() else [sys.executable, "-m", "logprep.cli"]
     v = subprocess.run(cmd + ["--version"], capture_output=True, text=True)
     assert v.returncode == 0 and v.stdout.startswith("logprep ")
     r = subprocess.run(cmd + ["screen", "--throw-max", "60"], cwd=tmp_path, capture_output=True,
