@@ -27,6 +27,7 @@ from logprep.model import Layers, WellLog
 from logprep.units import LENGTH_UNITS
 from logprep.qc import REPLACED, QcSettings, any_flag, gr_flags, inches
 from logprep.sgr import SGR_FIELD_SOURCES, SgrField, sgr_field
+from logprep.smear import window_smear, with_smear_fields
 from logprep.tops import TOPS_COLUMNS, read_tops, tops_for_well
 from logprep.vshale import (
     density_g_cm3, density_porosity, gamma_ray_index, gas_crossover, get_combination,
@@ -444,8 +445,10 @@ def screen_well(
         throw_step_m=settings.field_throw_step_m, depth_step_m=settings.field_depth_step_m,
         source=settings.sgr_field_source,
     )
+    sgr = with_smear_fields(sgr, layers)
     windows, note = seal_capacity_step(well, layers, windows, settings)
     notes.append(note)
+    windows = windows.join(window_smear(layers, windows, settings.throw_max_m))
     return WellScreening(
         well=well, settings=settings, depth_m=depth, gr_api=cv.gr_api, vsh=vsh, filled=filled,
         gr_clean_api=cv.gr_clean_api, gr_shale_api=cv.gr_shale_api, layers=layers,

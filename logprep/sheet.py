@@ -368,7 +368,15 @@ def capacity_pages(result) -> list[Figure]:
     return [seal_capacity_page(result)]
 
 
-EXTRA_PAGES: list[Callable[[object], list[Figure]]] = [capacity_pages, window_table_pages]
+def smear_pages(result) -> list[Figure]:
+    """The shale-smear page (drawn by :mod:`logprep.sheet_smear`)."""
+    from logprep.sheet_smear import smear_page
+
+    return smear_page(result)
+
+
+EXTRA_PAGES: list[Callable[[object], list[Figure]]] = [capacity_pages, smear_pages,
+                                                       window_table_pages]
 """Functions ``result -> list of Figures`` appended after page 1, in order."""
 
 

@@ -46,6 +46,8 @@ def test_example_run_writes_contract(example_run, example_dir):
         assert 800 < layers["base_m"].iloc[-1] - layers["top_m"].iloc[0] < 1300
         jux = pd.read_csv(d / "juxtapositions.csv")
         assert list(jux.columns[:8]) == WINDOW_COLUMNS
+        assert list(jux.columns[-4:]) == ["ssf_min", "ssf_max", "csp_min_m", "csp_max_m"]
+        assert (jux["ssf_min"] <= jux["ssf_max"]).all() and (jux["csp_min_m"] >= 0).all()
         assert len(jux) > 0
         assert jux["sgr_min_pct"].between(0, 100).all() and jux["sgr_max_pct"].between(0, 100).all()
         assert (jux["sgr_min_pct"] <= jux["sgr_max_pct"] + 1e-9).all()
