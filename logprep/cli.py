@@ -131,7 +131,19 @@ def _clay_quality_options(p: argparse.ArgumentParser, d) -> None:
                    help=f"caliper over bit size that flags a washout (default: {d.washout_in})")
 
 
-SETTINGS_OPTION_GROUPS = [_clay_options, _clay_quality_options, _blocking_options, _fault_options, _capacity_options]
+def _survey_options(p: argparse.ArgumentParser, d) -> None:
+    g = p.add_argument_group("deviated wells")
+    g.add_argument("--survey-dir", dest="survey_dir", metavar="DIR",
+                   help="folder of deviation surveys named <well or file stem>.csv with columns "
+                        "md_m, inc_deg, azi_deg; wells with one are screened on TVD (minimum "
+                        "curvature), others are taken as vertical")
+    g.add_argument("--bed-dip", dest="bed_dip_deg", type=float, metavar="DEG",
+                   help="bed dip in degrees for the true stratigraphic thickness tst_m in "
+                        f"layers.csv (default: {d.bed_dip_deg})")
+
+
+SETTINGS_OPTION_GROUPS = [_clay_options, _clay_quality_options, _blocking_options, _fault_options,
+                          _capacity_options, _survey_options]
 """Each adds one group of options whose ``dest`` is a :class:`ScreenSettings` field and
 whose default is None (not given); add a function here for a new group."""
 

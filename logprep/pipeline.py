@@ -28,6 +28,7 @@ from logprep.units import LENGTH_UNITS
 from logprep.qc import REPLACED, QcSettings, any_flag, gr_flags, inches
 from logprep.sgr import SGR_FIELD_SOURCES, SgrField, sgr_field
 from logprep.smear import window_smear, with_smear_fields
+from logprep.survey import find_survey, read_survey, tvd_at_md, well_to_tvd
 from logprep.tops import TOPS_COLUMNS, read_tops, tops_for_well
 from logprep.vshale import (
     density_g_cm3, density_porosity, gamma_ray_index, gas_crossover, get_combination,
@@ -134,6 +135,12 @@ class ScreenSettings:
         one); None takes every sample.
     field_throw_step_m : float
         Column spacing of the field (m).
+    survey_dir : str or None
+        Folder of deviation surveys, ``<well name or file stem>.csv`` (MD, inclination,
+        azimuth; see :mod:`logprep.survey`).  A well with a survey is screened on TVD by
+        minimum curvature; a well without one is taken as vertical.
+    bed_dip_deg : float
+        Bed dip (degrees) for the true stratigraphic thickness ``tst_m`` in ``layers.csv``.
     """
 
     transform: str = "linear"
@@ -175,6 +182,8 @@ class ScreenSettings:
     sgr_field_source: str = "layers"
     field_depth_step_m: float | None = 0.5
     field_throw_step_m: float = 1.0
+    survey_dir: str | None = None
+    bed_dip_deg: float = 0.0
 
     def __post_init__(self) -> None:
         get_transform(self.transform)
@@ -199,6 +208,8 @@ class ScreenSettings:
             raise SettingsError(f"--throw-max must be > 0 m (got {self.throw_max_m:g})")
         if not 0 <= self.sgr_threshold_pct <= 100:
             raise SettingsError(f"SGR threshold must be within 0-100 % (got {self.sgr_threshold_pct:g})")
+        if not 0 <= self.bed_dip_deg < 90:
+            raise SettingsError(f"--bed-dip must lie within 0 and 90 degrees (got {self.bed_dip_deg:g})")
         if not self.changepoint_penalty >= 0:
             raise SettingsError(
                 f"--changepoint-penalty must be >= 0 (got {self.changepoint_penalty:g})")
@@ -293,6 +304,7 @@ class WellScreening:
     gr_clean_line: np.ndarray | None = None
     gr_shale_line: np.ndarray | None = None
     grid: SgrField | None = None
+    depth_reference: str = "as logged"
 
     @property
     def min_window_sgr_pct(self) -> float:
@@ -413,6 +425,26 @@ def clay_volume(well: WellLog, settings: ScreenSettings = ScreenSettings(),
     )
 
 
+def deviated_well(well: WellLog, settings: ScreenSettings, picks: pd.DataFrame):
+    """The well (and its tops) on TVD when ``settings.survey_dir`` holds a survey for it.
+
+    Returns ``(well, picks, depth_reference, note)``; unchanged with reference
+    ``"as logged"`` and no note for a well without a survey (taken as vertical).
+    """
+    if not settings.survey_dir:
+        return well, picks, "as logged", None
+    path = find_survey(settings.survey_dir, well.name, Path(well.source).stem)
+    if path is None:
+        return well, picks, "as logged", None
+    md, inc, azi = read_survey(path)
+    tvd_well = well_to_tvd(well, path)
+    if len(picks):
+        picks = picks.assign(top_m=tvd_at_md(picks["top_m"].to_numpy(float), md, inc, azi))
+    return (tvd_well, picks, "TVD",
+            f"depth axis is TVD below the log's depth reference, from survey {path.name} "
+            f"(minimum curvature; max inclination {inc.max():.1f} deg); tops converted too")
+
+
 def screen_well(
     well: WellLog,
     settings: ScreenSettings = ScreenSettings(),
@@ -425,9 +457,10 @@ def screen_well(
     None and ``settings.tops_file`` is set, that file is read.
     """
     picks = well_tops(well, settings, tops)
+    well, picks, depth_ref, survey_note = deviated_well(well, settings, picks)
     cv = clay_volume(well, settings, picks)
     depth = cv.depth_m
-    notes = list(cv.notes)
+    notes = list(cv.notes) + ([survey_note] if survey_note else [])
     vsh, filled = fill_gaps(depth, cv.vsh)
     if filled.any():
         notes.append(
@@ -455,6 +488,7 @@ def screen_well(
         windows=windows, tops=picks, notes=tuple(notes), vsh_gr=cv.vsh_gr, vsh_nd=cv.vsh_nd,
         qc_flags=cv.qc_flags, picks=cv.picks, gr_clean_line=cv.gr_clean_line,
         gr_shale_line=cv.gr_shale_line, grid=sgr,
+        depth_reference=depth_ref,
     )
 
 

@@ -60,7 +60,7 @@ def draw_gr_track(ax, result) -> None:
                        color=QC_COLOURS.get(name, INK), transform=trans,
                        label=f"QC: {name.replace('_', ' ')}")
     ax.set_xlabel(f"GR ({result.well.gr_mnemonic}), API; {len(result.picks)} zone(s)")
-    ax.set_ylabel("Depth (m, as logged)")
+    ax.set_ylabel(f"Depth (m, {getattr(result, 'depth_reference', 'as logged')})")
     ax.legend(loc="lower left", fontsize=6, framealpha=0.9)
     L = result.layers
     ax.set_ylim(L.base_m[-1], L.top_m[0])
