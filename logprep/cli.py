@@ -142,8 +142,17 @@ def _survey_options(p: argparse.ArgumentParser, d) -> None:
                         f"layers.csv (default: {d.bed_dip_deg})")
 
 
+def _pair_options(p: argparse.ArgumentParser, d) -> None:
+    from logprep.twowell import SLIP_SOURCES
+
+    g = p.add_argument_group("well pairs across a fault")
+    g.add_argument("--pair-slip-from", dest="pair_slip_source", choices=list(SLIP_SOURCES),
+                   help="for --pairs: take the slipped interval from the footwall well, the "
+                        f"hanging-wall well, or average the two (default: {d.pair_slip_source})")
+
+
 SETTINGS_OPTION_GROUPS = [_clay_options, _clay_quality_options, _blocking_options, _fault_options,
-                          _capacity_options, _survey_options]
+                          _capacity_options, _survey_options, _pair_options]
 """Each adds one group of options whose ``dest`` is a :class:`ScreenSettings` field and
 whose default is None (not given); add a function here for a new group."""
 
@@ -213,7 +222,17 @@ def cmd_screen(args) -> int:
     ok = len(report.rows) - len(report.failures)
     print(f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed; "
           f"results in {args.out}, summary {report.summary_path}")
-    return EXIT_SOME_FAILED if report.failures else EXIT_OK
+    failed = bool(report.failures)
+    if args.pairs:
+        from logprep.pairs import screen_pairs
+
+        rows = screen_pairs(paths, args.pairs, args.out, settings,
+                            on_error=lambda msg: print(f"error: {msg}", file=sys.stderr))
+        bad = sum(r["status"] != "ok" for r in rows)
+        print(f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed; "
+              f"summary {args.out}/pairs_summary.csv")
+        failed = failed or bad > 0
+    return EXIT_SOME_FAILED if failed else EXIT_OK
 
 
 def cmd_tune(args) -> int:
@@ -257,6 +276,9 @@ def build_parser() -> argparse.ArgumentParser:
     p.add_argument("--out", default="screening", metavar="DIR",
                    help="output folder (default: ./%(default)s)")
     _add_config_option(p)
+    p.add_argument("--pairs", metavar="FILE",
+                   help="also screen well pairs across a fault: CSV of footwall, hangingwall and "
+                        "marker (a top in both wells, needs --tops) or shift_m; one folder per pair")
     _add_screen_options(p)
     p.set_defaults(func=cmd_screen)
 

@@ -28,6 +28,7 @@ from logprep.units import LENGTH_UNITS
 from logprep.qc import REPLACED, QcSettings, any_flag, gr_flags, inches
 from logprep.sgr import SGR_FIELD_SOURCES, SgrField, sgr_field
 from logprep.smear import window_smear, with_smear_fields
+from logprep.twowell import SLIP_SOURCES
 from logprep.survey import find_survey, read_survey, tvd_at_md, well_to_tvd
 from logprep.tops import TOPS_COLUMNS, read_tops, tops_for_well
 from logprep.vshale import (
@@ -141,6 +142,9 @@ class ScreenSettings:
         minimum curvature; a well without one is taken as vertical.
     bed_dip_deg : float
         Bed dip (degrees) for the true stratigraphic thickness ``tst_m`` in ``layers.csv``.
+    pair_slip_source : str
+        For well pairs (``--pairs``): the column the slipped interval is taken from, a key
+        of :data:`logprep.twowell.SLIP_SOURCES` (``footwall``, ``hangingwall``, ``average``).
     """
 
     transform: str = "linear"
@@ -184,6 +188,7 @@ class ScreenSettings:
     field_throw_step_m: float = 1.0
     survey_dir: str | None = None
     bed_dip_deg: float = 0.0
+    pair_slip_source: str = "footwall"
 
     def __post_init__(self) -> None:
         get_transform(self.transform)
@@ -208,6 +213,9 @@ class ScreenSettings:
             raise SettingsError(f"--throw-max must be > 0 m (got {self.throw_max_m:g})")
         if not 0 <= self.sgr_threshold_pct <= 100:
             raise SettingsError(f"SGR threshold must be within 0-100 % (got {self.sgr_threshold_pct:g})")
+        if self.pair_slip_source not in SLIP_SOURCES:
+            raise SettingsError(f"unknown pair slip source {self.pair_slip_source!r}; use one of "
+                                f"{', '.join(SLIP_SOURCES)}")
         if not 0 <= self.bed_dip_deg < 90:
             raise SettingsError(f"--bed-dip must lie within 0 and 90 degrees (got {self.bed_dip_deg:g})")
         if not self.changepoint_penalty >= 0:

@@ -1,0 +1,120 @@
+"""Two-well juxtaposition and SGR against an analytic thickness-change example, the
+single-well limit, and dense sampling; the pairs CLI on the invented Harrowmere pair.
+
+SGR definition: Yielding, Freeman & Needham (1997), AAPG Bulletin 81(6) 897-917; the
+slipped-interval choices across two columns (footwall, hanging wall, average) are common
+practice, no source.  Expected values below are worked by hand from the definition.
+"""
+
+import numpy as np
+import pandas as pd
+import pytest
+
+from logprep.juxtaposition import sand_windows
+from logprep.model import Layers
+from logprep.twowell import (
+    PairError, marker_shift_m, two_well_juxtaposition, two_well_sgr_pct, two_well_windows,
+)
+
+# Footwall well A: sand 0-50, shale 50-60, sand 60-100; tie marker at 50 (top of the shale).
+A = Layers([0, 50, 60], [50, 60, 100], [0.0, 1.0, 0.0], ["sand", "shale", "sand"])
+# Hanging-wall well B: the shale thickens to 20 m: sand 0-70, shale 70-90, sand 90-130;
+# the marker at 70.  Shift = 70 - 50 = 20 m.
+B = Layers([0, 70, 90], [70, 90, 130], [0.0, 1.0, 0.0], ["sand", "shale", "sand"])
+SHIFT = 20.0
+
+
+def test_marker_shift():
+    tops_a = pd.DataFrame({"well": ["A"], "top_m": [50.0], "name": ["Tie Marker"]})
+    tops_b = pd.DataFrame({"well": ["B"], "top_m": [70.0], "name": ["tie marker "]})
+    assert marker_shift_m(tops_a, tops_b, "Tie marker") == SHIFT
+    with pytest.raises(PairError, match="not found"):
+        marker_shift_m(tops_a, tops_b, "Other")
+
+
+def test_sgr_point_thickness_change():
+    # z = 80, t = 35 -> hanging-wall depth y = 80 - 35 + 20 = 65 (B's upper sand).
+    # footwall interval A[45, 80]: 10 m shale -> 10/35; hanging-wall interval B[65, 100]:
+    # 20 m shale -> 20/35; average 15/35.
+    for source, expect in (("footwall", 10 / 35), ("hangingwall", 20 / 35), ("average", 15 / 35)):
+        assert two_well_sgr_pct(A, B, SHIFT, 80.0, 35.0, source) == pytest.approx(100 * expect, abs=1e-9)
+    assert two_well_juxtaposition(A, B, SHIFT, [80.0], [35.0]).tolist() == [[1]]  # sand/sand
+    assert two_well_juxtaposition(A, B, SHIFT, [80.0], [20.0]).tolist() == [[3]]  # y = 80: shale
+
+
+def test_window_extremes_thickness_change():
+    # Footwall sand [60, 100] against hanging-wall sand B[0, 70], throws up to 100 m.
+    # Throw range: 60 - (70 - 20) = 10 to 100 (capped).
+    # Footwall interval: the whole 10 m shale is inside, SGR = 10/t: 100 % at t = 10 and
+    # 10 % at t = 100 (z = 100, y = 20).  Hanging-wall interval: shale overlap
+    # min(z - 50, 20) over t = z - y + 20: 100 % at (z, y) = (60, 70); lowest 12.5 % at
+    # (60, 0), t = 80.
+    expected = {"footwall": (10.0, 100.0), "hangingwall": (12.5, 100.0)}
+    for source, (lo, hi) in expected.items():
+        w = two_well_windows(A, B, SHIFT, 100.0, source)
+        row = w[(w.footwall_layer == 2) & (w.hangingwall_layer == 0)].iloc[0]
+        assert (row.throw_min_m, row.throw_max_m) == (10.0, 100.0)
+        assert row.sgr_min_pct == pytest.approx(lo, abs=1e-6)
+        assert row.sgr_max_pct == pytest.approx(hi, abs=1e-6)
+
+
+def test_average_extremes_against_dense_sampling():
+    w = two_well_windows(A, B, SHIFT, 100.0, "average")
+    row = w[(w.footwall_layer == 2) & (w.hangingwall_layer == 0)].iloc[0]
+    z, y = np.meshgrid(np.linspace(60, 100, 401), np.linspace(0, 70, 701))
+    t = z - y + SHIFT
+    keep = (t >= 10 - 1e-9) & (t <= 100 + 1e-9)  # closed: the extremes sit on the limits
+    s = two_well_sgr_pct(A, B, SHIFT, z[keep], t[keep], "average")
+    s = s[np.isfinite(s)]  # the footwall interval must stay within well A (z - t >= 0)
+    assert row.sgr_min_pct <= s.min() + 1e-9 and row.sgr_min_pct == pytest.approx(s.min(), abs=0.05)
+    assert row.sgr_max_pct >= s.max() - 1e-9 and row.sgr_max_pct == pytest.approx(s.max(), abs=0.05)
+
+
+def test_same_well_reduces_to_single_column():
+    L = Layers([0, 12, 20, 35, 41, 70, 78], [12, 20, 35, 41, 70, 78, 100],
+               [0.15, 0.8, 0.1, 0.55, 0.05, 0.95, 0.2],
+               ["sand", "shale", "sand", "heterolith", "sand", "shale", "sand"])
+    one = sand_windows(L, 60.0)
+    for source in ("footwall", "hangingwall", "average"):
+        two = two_well_windows(L, L, 0.0, 60.0, source)
+        cols = ["throw_min_m", "throw_max_m", "sgr_min_pct", "sgr_max_pct"]
+        np.testing.assert_allclose(two[cols].to_numpy(), one[cols].to_numpy(), atol=1e-6)
+
+
+def test_pairs_cli_on_example(tmp_path, example_dir):
+    from logprep.cli import main
+
+    out = tmp_path / "out"
+    code = main(["screen", str(example_dir / "HRM-2.las"), str(example_dir / "HRM-3.las"),
+                 "--out", str(out), "--tops", str(example_dir / "tops.csv"),
+                 "--pairs", str(example_dir / "pairs.csv"), "--pair-slip-from", "average",
+                 "--field-depth-step", "2", "--field-throw-step", "5"])
+    assert code == 0
+    summary = pd.read_csv(out / "pairs_summary.csv")
+    row = summary.iloc[0]
+    # Kellan Marker: HRM-3 1988.00 m, HRM-2 1838.00 m (example_logs/tops.csv)
+    assert row.status == "ok" and row.shift_m == pytest.approx(150.0)
+    d = out / row.folder
+    jux = pd.read_csv(d / "juxtapositions.csv")
+    assert list(jux.columns[:8]) == list(sand_windows.__globals__["WINDOW_COLUMNS"])
+    assert jux["sgr_min_pct"].between(0, 100).all() and len(jux) > 0
+    z = np.load(d / "sgr_field.npz")
+    assert z["sgr_pct"].shape == (z["depth_m"].size, z["throw_m"].size)
+    assert (d / "sheet.pdf").read_bytes().startswith(b"%PDF")
+
+
+def test_pairs_bad_rows_are_reported(tmp_path, example_dir, capsys):
+    from logprep.cli import main
+
+    pairs = tmp_path / "pairs.csv"
+    pairs.write_text("footwall,hangingwall,marker\nHRM-2,HRM-9,Kellan Marker\nHRM-2,HRM-3,Nope\n")
+    out = tmp_path / "out"
+    code = main(["screen", str(example_dir / "HRM-2.las"), str(example_dir / "HRM-3.las"),
+                 "--out", str(out), "--tops", str(example_dir / "tops.csv"), "--pairs", str(pairs),
+                 "--field-depth-step", "4", "--field-throw-step", "10"])
+    assert code == 1
+    err = capsys.readouterr().err
+    assert "HRM-9" in err and "not found" in err and "'Nope'" in err
+    assert all(len(line) < 300 for line in err.splitlines())
+    summary = pd.read_csv(out / "pairs_summary.csv")
+    assert list(summary["status"]) == ["error", "error"]
