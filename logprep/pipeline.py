@@ -18,7 +18,7 @@ from logprep.capacity import (
     CO2_DENSITY_MODES, CapacityParams, capacity_params, depth_datum, seal_capacity_table,
 )
 from logprep.errors import SettingsError
-from logprep.juxtaposition import juxtaposition_grid, sand_windows, sgr_layered_pct
+from logprep.juxtaposition import sand_windows
 from logprep.endpoints import (
     PICK_COLUMNS, ZONINGS, lines_per_sample, nd_shale_separation, pick_endpoints, zone_bounds,
 )
@@ -320,16 +320,6 @@ class WellScreening:
         (NaN when there are none)."""
         w = self.windows[~self.windows["self_juxtaposed"]]
         return float(w["sgr_min_pct"].min()) if len(w) else float("nan")
-
-    def grids(self, n_depth: int = 500, n_throw: int = 300):
-        """Depth and throw axes with the SGR (%) and juxtaposition-class grids for the
-        triangle diagram: ``(depth_m, throw_m, sgr_pct, juxtaposition)``."""
-        top, base = self.layers.top_m[0], self.layers.base_m[-1]
-        depth = np.linspace(top, base, n_depth)
-        throw = np.linspace(0.0, self.settings.throw_max_m, n_throw)
-        sgr = sgr_layered_pct(self.layers, depth[:, None], throw[None, :])
-        jux = juxtaposition_grid(self.layers, depth, throw)
-        return depth, throw, sgr, jux
 
 
 def well_tops(well: WellLog, settings: ScreenSettings, tops: pd.DataFrame | None = None) -> pd.DataFrame:

@@ -15,6 +15,7 @@ from typing import Callable
 
 import matplotlib
 import numpy as np
+from matplotlib.collections import PolyCollection
 from matplotlib.figure import Figure
 from matplotlib.patches import Patch
 
@@ -143,31 +144,32 @@ def draw_field(ax, grid, *, threshold_pct: float, throw_max_m: float, windows=No
                          colors="none", hatches=[hatch])
         cf.set_edgecolor("#FFFFFF")
         cf.set_linewidth(0)
+        cf.set_rasterized(True)  # hatching as vector paths is slow to write and to view
     levels = sgr_levels(threshold_pct)
     widths = [1.6 if lv == threshold_pct else 0.6 for lv in levels]
     cs = ax.contour(throw, depth, sgr, levels=levels, colors=INK, linewidths=widths)
     ax.clabel(cs, fmt="%g%%", fontsize=6)
     if windows is not None and len(windows):
-        cross = windows[~windows["self_juxtaposed"]]
-        for k, w in zip(cross.index, cross.itertuples()):
+        polys = {}  # row number (from 1) -> outline, for windows between different sands
+        for k, w in enumerate(windows.itertuples(), start=1):
+            if w.self_juxtaposed:
+                continue
             poly = contact_polygon(w.footwall_top_m, w.footwall_base_m,
                                    w.hangingwall_top_m - hw_shift_m,
                                    w.hangingwall_base_m - hw_shift_m, 0.0, throw_max_m)
-            if len(poly) < 3:
-                continue
-            strong = (k + 1) in labelled
-            ax.fill(poly[:, 0], poly[:, 1], fill=False, ec=WINDOW_INK, lw=1.1 if strong else 0.5,
-                    ls="-" if strong else ":")
+            if len(poly) >= 3:
+                polys[k] = poly
+        for strong in (False, True):
+            group = [p for k, p in polys.items() if (k in labelled) == strong]
+            if group:
+                ax.add_collection(PolyCollection(group, facecolors="none", edgecolors=WINDOW_INK,
+                                                 linewidths=1.1 if strong else 0.5,
+                                                 linestyles="-" if strong else ":"))
         for k in labelled:
-            poly = contact_polygon(*(windows.iloc[k - 1][c] - (hw_shift_m if "hanging" in c else 0.0)
-                                     for c in ("footwall_top_m", "footwall_base_m",
-                                               "hangingwall_top_m", "hangingwall_base_m")),
-                                   0.0, throw_max_m)
-            if len(poly) < 3:
-                continue
-            tmid, zmid = poly.mean(axis=0)
-            ax.text(tmid, zmid, str(k), fontsize=6.5, ha="center", va="center",
-                    bbox=dict(boxstyle="round,pad=0.15", fc="white", ec=WINDOW_INK, lw=0.6))
+            if k in polys:
+                tmid, zmid = polys[k].mean(axis=0)
+                ax.text(tmid, zmid, str(k), fontsize=6.5, ha="center", va="center",
+                        bbox=dict(boxstyle="round,pad=0.15", fc="white", ec=WINDOW_INK, lw=0.6))
     ax.set_xlim(min(0.0, throw[0]), throw_max_m)
     ax.set_ylim(depth[-1], depth[0])
     return im
