@@ -129,6 +129,9 @@ def _clay_quality_options(p: argparse.ArgumentParser, d) -> None:
                         f"(neutron-density where usable) (default: {d.vsh_combine})")
     g.add_argument("--washout", dest="washout_in", type=float, metavar="INCHES",
                    help=f"caliper over bit size that flags a washout (default: {d.washout_in})")
+    g.add_argument("--drho-max", dest="drho_max_g_cm3", type=float, metavar="G_CM3",
+                   help="density correction |DRHO| above which neutron-density is not used, "
+                        f"g/cm3 (default: {d.drho_max_g_cm3})")
 
 
 def _survey_options(p: argparse.ArgumentParser, d) -> None:

@@ -35,12 +35,15 @@ CURVE_ALIASES: dict[str, list[str]] = {
     "rhob": ["RHOB", "RHOZ", "DEN", "ZDEN", "DENS", "RHOB_CORR", "HDEN", "RHO8"],
     "cali": ["CALI", "CAL", "CALX", "CALS", "HCAL", "C1", "CALY", "CALIPER"],
     "bs": ["BS", "BIT", "BITSIZE", "BIT_SIZE"],
+    "drho": ["DRHO", "DCOR", "ZCOR", "HDRA", "DRH"],
 }
-"""Mnemonics by curve kind (gamma ray, neutron porosity, bulk density, caliper, bit size),
-in order of preference; first match wins.  Add a kind or a mnemonic here."""
+"""Mnemonics by curve kind (gamma ray, neutron porosity, bulk density, caliper, bit size,
+density correction), in order of preference; first match wins.  Add a kind or a mnemonic
+here."""
 
 _KIND_NAMES = {"gr": "gamma-ray", "nphi": "neutron-porosity", "rhob": "bulk-density",
-               "cali": "caliper", "bs": "bit-size"}
+               "cali": "caliper", "bs": "bit-size",
+               "drho": "density-correction"}
 
 DEPTH_UNITS_M: dict[str, float] = {
     "M": 1.0, "METER": 1.0, "METERS": 1.0, "METRE": 1.0, "METRES": 1.0,

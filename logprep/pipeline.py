@@ -25,14 +25,14 @@ from logprep.endpoints import (
 from logprep.lasread import read_well, well_curve
 from logprep.model import Layers, WellLog
 from logprep.units import LENGTH_UNITS
-from logprep.qc import REPLACED, QcSettings, any_flag, gr_flags, inches
+from logprep.qc import ND_ONLY, REPLACED, QcSettings, any_flag, density_correction_flags, gr_flags, inches
 from logprep.sgr import SGR_FIELD_SOURCES, SgrField, sgr_field
 from logprep.smear import window_smear, with_smear_fields
 from logprep.twowell import SLIP_SOURCES
 from logprep.survey import find_survey, read_survey, tvd_at_md, well_to_tvd
 from logprep.tops import TOPS_COLUMNS, read_tops, tops_for_well
 from logprep.vshale import (
-    density_g_cm3, density_porosity, gamma_ray_index, gas_crossover, get_combination,
+    density_correction_g_cm3, density_g_cm3, density_porosity, gamma_ray_index, gas_crossover, get_combination,
     get_transform, neutron_v_v, parse_endpoint, vsh_neutron_density,
 )
 
@@ -121,6 +121,9 @@ class ScreenSettings:
         :data:`logprep.vshale.COMBINATIONS` (``gr`` ignores neutron-density).
     washout_in : float
         Caliper over bit size (inches) above which a sample is a washout.
+    drho_max_g_cm3 : float
+        Density correction ``|DRHO|`` (g/cm3) above which the density reading is not
+        trusted: neutron-density Vsh is not used there (GR alone).
     changepoint_penalty : float
         For ``blocking = "changepoint"``: cost of one change of mean Vsh, as a multiple of
         (noise sd)^2 x ln(samples); 2 matches the Schwarz criterion, larger gives fewer
@@ -181,6 +184,7 @@ class ScreenSettings:
     min_contrast: float = 0.7
     vsh_combine: str = "mean"
     washout_in: float = 1.5
+    drho_max_g_cm3: float = 0.10
     changepoint_penalty: float = 2.0
     honour_tops: bool = False
     sgr_field_source: str = "layers"
@@ -203,6 +207,8 @@ class ScreenSettings:
             raise SettingsError(f"--min-contrast must be within 0-1 (got {self.min_contrast:g})")
         if not self.washout_in > 0:
             raise SettingsError(f"--washout must be > 0 in (got {self.washout_in:g})")
+        if not self.drho_max_g_cm3 > 0:
+            raise SettingsError(f"--drho-max must be > 0 g/cm3 (got {self.drho_max_g_cm3:g})")
         get_blocking_method(self.blocking)
         object.__setattr__(self, "gr_clean", parse_endpoint(self.gr_clean))
         object.__setattr__(self, "gr_shale", parse_endpoint(self.gr_shale))
@@ -381,7 +387,7 @@ def clay_volume(well: WellLog, settings: ScreenSettings = ScreenSettings(),
     flags = gr_flags(depth, gr_read, cali_in=cali, bs_in=bs,
                      settings=QcSettings(washout_in=settings.washout_in))
     gr = np.where(any_flag(flags, REPLACED), np.nan, gr_read)
-    exclude = any_flag(flags)
+    exclude = any_flag(flags, [k for k in flags if k not in ND_ONLY])
     bounds, source, names = zone_bounds(
         depth, np.where(exclude, np.nan, gr), settings.zoning, tops, bs_in=bs,
         min_zone_m=settings.zone_min_m, min_step_api=settings.zone_step_api,
@@ -402,12 +408,17 @@ def clay_volume(well: WellLog, settings: ScreenSettings = ScreenSettings(),
     nphi = _curve_in(well, "nphi", sl, neutron_v_v)
     rhob = _curve_in(well, "rhob", sl, density_g_cm3)
     flags["gas_crossover"] = np.zeros(depth.size, dtype=bool)
+    drho = _curve_in(well, "drho", sl, density_correction_g_cm3)
+    flags["bad_density"] = (density_correction_flags(drho, settings.drho_max_g_cm3)
+                            if drho is not None else np.zeros(depth.size, dtype=bool))
     if nphi is not None and rhob is not None and settings.vsh_combine != "gr":
         phid = density_porosity(rhob)
         sep = nphi - phid
-        picks["nd_shale_separation"] = nd_shale_separation(depth, gr, sep, picks, exclude=exclude)
+        nd_bad = flags["washout"] | flags["bad_density"]
+        picks["nd_shale_separation"] = nd_shale_separation(depth, gr, sep, picks,
+                                                           exclude=exclude | nd_bad)
         sep_line = lines_per_sample(depth, picks, "nd_shale_separation")
-        usable = np.isfinite(sep_line) & ~flags["washout"]
+        usable = np.isfinite(sep_line) & ~nd_bad
         for value in np.unique(sep_line[usable]):
             m = usable & (sep_line == value)
             vsh_nd[m] = vsh_neutron_density(nphi[m], phid[m], float(value))

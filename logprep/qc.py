@@ -26,11 +26,17 @@ QC_FLAGS: dict[str, tuple[int, str, str]] = {
     "spike": (32, "single-sample GR spike", "replaced by interpolation; not used in picks"),
     "washout": (64, "caliper exceeds bit size (washout)", "kept; not used in picks; neutron-density ignored"),
     "gas_crossover": (128, "neutron-density crossover (gas)", "neutron-density Vsh set to 0, not negative"),
+    "bad_density": (256, "density correction (DRHO) beyond its limit: poor pad contact",
+                    "neutron-density not used (GR Vsh alone); GR picks unaffected"),
 }
 """QC flag name -> (bit in the exported QC curve, meaning, action)."""
 
 REPLACED = ("negative", "implausible", "spike")
 """Flags whose GR readings are replaced (set missing, then interpolated)."""
+
+ND_ONLY = ("gas_crossover", "bad_density")
+"""Flags about the neutron and density logs only: they never keep a GR sample out of the
+GR picks."""
 
 QC_TABLE_COLUMNS = ["flag", "top_m", "base_m", "thickness_m", "samples", "meaning", "action"]
 
@@ -138,6 +144,19 @@ def washout_flags(cali_in, bs_in, washout_in: float = 1.5) -> np.ndarray:
     """Caliper more than ``washout_in`` inches over the bit size."""
     with np.errstate(invalid="ignore"):
         return (np.asarray(cali_in, dtype=float) - np.asarray(bs_in, dtype=float)) > washout_in
+
+
+def density_correction_flags(drho_g_cm3, limit_g_cm3: float = 0.10) -> np.ndarray:
+    """Samples whose density correction ``|DRHO|`` exceeds ``limit_g_cm3``.
+
+    The compensated density tool adds DRHO to make up for mudcake and standoff; a large
+    correction means the pad lost contact with the wall (rugose or washed-out hole, thick
+    mudcake) and the bulk density, hence the neutron-density Vsh, cannot be trusted.
+    A limit of about 0.1 g/cm3 is common practice, no source (value from memory).
+    Missing DRHO is not flagged.
+    """
+    with np.errstate(invalid="ignore"):
+        return np.abs(np.asarray(drho_g_cm3, dtype=float)) > limit_g_cm3
 
 
 def gr_flags(

@@ -34,6 +34,7 @@ INK = "#222222"
 QC_COLOURS = {
     "missing": "#999999", "null_gap": "#555555", "clipped": "#D55E00", "negative": "#CC79A7",
     "implausible": "#CC79A7", "spike": "#CC79A7", "washout": "#0072B2", "gas_crossover": "#009E73",
+    "bad_density": "#56B4E9",
 }
 """Marker colour of each QC flag on the sheet (Okabe & Ito 2008 palette and greys)."""
 

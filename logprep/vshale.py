@@ -205,6 +205,18 @@ def density_g_cm3(rhob, unit: str):
     return np.asarray(rhob, dtype=float) * f
 
 
+def density_correction_g_cm3(drho, unit: str):
+    """Density correction (DRHO) in g/cm3 from a curve in any unit of
+    :data:`DENSITY_UNITS`.  A blank unit is judged from the values: a median magnitude
+    above 1 means kg/m3 (a correction of 1 g/cm3 is impossible)."""
+    key = (unit or "").strip().upper().replace(" ", "")
+    v = np.asarray(drho, dtype=float)
+    if key in ("", "_", "UNITLESS", "NONE"):
+        a = np.abs(v[np.isfinite(v)])
+        return v * (1e-3 if a.size and float(np.median(a)) > 1.0 else 1.0)
+    return v * _unit_factor(v, unit, DENSITY_UNITS, 100.0, 1e-3, "density-correction")
+
+
 def neutron_v_v(nphi, unit: str):
     """Neutron porosity as a fraction from a curve in any unit of :data:`NEUTRON_UNITS`.
 

@@ -118,6 +118,55 @@ def test_bad_samples_excluded_from_picks():
     assert picks.gr_clean_api.iloc[0] == pytest.approx(30.0)
 
 
+def test_density_correction_gate():
+    # Common practice, no source (value from memory): |DRHO| above about 0.1 g/cm3 means
+    # poor pad contact; the sign does not matter and a missing DRHO is not flagged.
+    from logprep.qc import density_correction_flags
+    from logprep.vshale import density_correction_g_cm3
+
+    d = np.array([0.0, 0.099, -0.101, 0.2, np.nan])
+    assert density_correction_flags(d, 0.10).tolist() == [False, False, True, True, False]
+    # kg/m3 by name or by magnitude (a 1 g/cm3 correction is impossible): 1 g/cm3 = 1000 kg/m3
+    np.testing.assert_allclose(density_correction_g_cm3([-120.0, 30.0], "kg/m3"), [-0.12, 0.03])
+    np.testing.assert_allclose(density_correction_g_cm3([-120.0, 30.0, 5.0], ""), [-0.12, 0.03, 0.005])
+    np.testing.assert_allclose(density_correction_g_cm3([-0.12, 0.03], ""), [-0.12, 0.03])
+
+
+def test_bad_density_keeps_nd_out_but_not_gr_picks():
+    # An invented well: sand/shale beds, neutron-density that reads everything as shale
+    # where |DRHO| is large.  There the chosen Vsh must equal the GR Vsh; elsewhere the
+    # mean of both (the default combination); the GR picks do not change.
+    from logprep.model import WellLog
+
+    n = 4000
+    z = 1000 + 0.15 * np.arange(n)
+    shale = (np.arange(n) // 50) % 2 == 1
+    gr = np.where(shale, 110.0, 30.0)
+    phid = np.where(shale, 0.10, 0.25)
+    nphi = np.where(shale, 0.40, 0.25)
+    drho = np.zeros(n)
+    drho[2000:2600] = 0.25
+    nphi[2000:2600] = 0.45  # spoiled reading: looks like shale everywhere
+    rhob = 2.65 - 1.65 * phid
+    curves = {"GR": gr, "NPHI": nphi, "RHOB": rhob, "DRHO": drho}
+    units = {"GR": "API", "NPHI": "v/v", "RHOB": "g/cm3", "DRHO": "g/cm3"}
+    well = WellLog(name="T", source="t.las", sha256="", depth_m=z, curves=curves, units=units,
+                   depth_unit="M", gr_mnemonic="GR")
+    cv = clay_volume(well, ScreenSettings(zoning="none"))
+    bad = cv.qc_flags["bad_density"]
+    assert bad.sum() == 600
+    np.testing.assert_allclose(cv.vsh[bad], cv.vsh_gr[bad])
+    assert np.all(np.isnan(cv.vsh_nd[bad]))
+    assert np.all(np.isfinite(cv.vsh_nd[~bad]))
+    no_drho = WellLog(name="T", source="t.las", sha256="", depth_m=z,
+                      curves={k: v for k, v in curves.items() if k != "DRHO"}, units=units,
+                      depth_unit="M", gr_mnemonic="GR")
+    cv2 = clay_volume(no_drho, ScreenSettings(zoning="none"))
+    pd.testing.assert_frame_equal(cv.picks.drop(columns="nd_shale_separation"),
+                                  cv2.picks.drop(columns="nd_shale_separation"))
+    assert (cv2.vsh[bad] > cv.vsh[bad]).any()
+
+
 def test_flag_code_bits_round_trip():
     f = {k: np.array([i % 2 == 0, True]) for i, k in enumerate(QC_FLAGS)}
     code = flag_code(f)
