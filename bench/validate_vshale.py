@@ -19,6 +19,11 @@ Each well is scored by balanced accuracy of the call "Vsh < 0.5 is sand"
 logprep's default settings (``ScreenSettings()``), printed side by side with medians.
 
     python bench/validate_vshale.py [OPEN_LOGS_DIR]      # default ../shared/data/open_logs
+    python bench/validate_vshale.py --variants [OPEN_LOGS_DIR]
+
+``--variants`` also scores each entry of :data:`VARIANTS` (settings changed from the
+default) and prints the FORCE and KGS median and worst well for each, so a proposed change
+of default can be compared on the same wells.
 """
 
 from __future__ import annotations
@@ -40,6 +45,23 @@ REPO = Path(__file__).resolve().parents[1]
 FORCE_SAND, FORCE_SHALE = 30000, 65000
 KGS_SAND, KGS_SHALE = (1,), (4,)
 KGS_MIN_SAMPLES = 10
+
+
+VARIANTS: dict[str, dict] = {
+    "default": {},
+    "GR alone (zoned)": {"vsh_combine": "gr"},
+    "minimum of GR and ND": {"vsh_combine": "min"},
+    "whole-well picks, mean": {"zoning": "none"},
+    "no DRHO gate": {"drho_max_g_cm3": 1e9},
+    "DRHO gate at 0.15 g/cm3": {"drho_max_g_cm3": 0.15},
+    "P10/P90 lines": {"gr_clean": "p10", "gr_shale": "p90"},
+    "P5/P90 lines": {"gr_clean": "p5", "gr_shale": "p90"},
+    "zones >= 200 m": {"zone_min_m": 200.0},
+    "min contrast 0.5": {"min_contrast": 0.5},
+    "P5/P90 lines, no DRHO gate": {"gr_shale": "p90", "drho_max_g_cm3": 1e9},
+    "P5/P90 lines, whole-well picks": {"gr_shale": "p90", "zoning": "none"},
+}
+"""Settings compared by ``--variants``: name -> changes to ``ScreenSettings()``."""
 
 
 def open_logs_dir(argv) -> Path:
@@ -88,7 +110,25 @@ def kgs_rows(root: Path, settings=ScreenSettings()):
         yield ("KGS Panoma", well.name, *score_well(well, facies, KGS_SAND, KGS_SHALE, settings))
 
 
+def variant_table(root: Path) -> pd.DataFrame:
+    """Median and worst balanced accuracy per set for each of :data:`VARIANTS`."""
+    rows = []
+    for name, changes in VARIANTS.items():
+        settings = ScreenSettings().updated(**changes)
+        got = pd.DataFrame(list(force_rows(root, settings)) + list(kgs_rows(root, settings)),
+                           columns=["set", "well", "baseline", "variant"])
+        row = {"variant": name}
+        for set_name, g in got.groupby("set", sort=False):
+            row[f"{set_name} median"] = g["variant"].median()
+            row[f"{set_name} worst"] = g["variant"].min()
+            row[f"{set_name} below baseline"] = int((g["variant"] < g["baseline"] - 0.005).sum())
+        rows.append(row)
+    return pd.DataFrame(rows)
+
+
 def main(argv=sys.argv) -> int:
+    variants = "--variants" in argv
+    argv = [a for a in argv if a != "--variants"]
     root = open_logs_dir(argv)
     if not (root / "force2020_norway").is_dir():
         print(f"open data not found at {root}; pass the open_logs folder", file=sys.stderr)
@@ -108,6 +148,12 @@ def main(argv=sys.argv) -> int:
               f"({len(g)} wells)")
     print(f"all: median baseline {table['baseline_p5_p95'].median():.3f}, "
           f"median default {table['logprep_default'].median():.3f} ({len(table)} wells)")
+    if variants:
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore", RuntimeWarning)
+            vt = variant_table(root)
+        print("\nVariants (balanced accuracy; 'below baseline' counts wells more than 0.005 under the P5/P95 baseline)")
+        print(vt.to_string(index=False, float_format=lambda x: f"{x:.3f}"))
     return 0
 
 

@@ -4,8 +4,9 @@ A single clean/shale pick for a whole well is wrong wherever the GR baseline mov
 size, mud, tool, formation).  Here the well is cut into zones, from formation tops or,
 without tops, where the GR baseline steps (a changepoint split), and each zone gets its
 own clean and shale lines from the samples that passed QC.  Picking the lines per zone
-when the baseline shifts is common practice, no source; the changepoint split is
-binary segmentation by least squares (Scott & Knott 1974, Biometrics 30(3), 507-512).
+when the baseline shifts is common practice, no source; the changepoint split is the
+exact least-squares changepoint search of :mod:`logprep.blocking` (PELT, Killick,
+Fearnhead & Eckley 2012, JASA 107(500), 1590-1598) on the running median of the GR.
 
 Zoning modes are registered in :data:`ZONINGS`.  Pure numpy/pandas: arrays in, tables out.
 """
@@ -15,7 +16,9 @@ from __future__ import annotations
 import numpy as np
 import pandas as pd
 
+from logprep.blocking import pelt_mean_breaks
 from logprep.errors import SettingsError
+from logprep.qc import running_median
 from logprep.vshale import resolve_endpoint
 
 PICK_COLUMNS = ["zone", "top_m", "base_m", "source", "gr_clean_api", "gr_shale_api",
@@ -27,54 +30,45 @@ ZONINGS = ("auto", "tops", "changepoint", "none")
 ``none``: one zone for the whole well (the plain single pick)."""
 
 
-def _baseline(depth_m, gr_api, smooth_m: float) -> np.ndarray:
-    step = float(np.median(np.diff(depth_m)))
-    n = max(3, int(round(smooth_m / step)))
-    base = pd.Series(gr_api).rolling(n, center=True, min_periods=1).median().to_numpy()
-    fill = np.nanmedian(base) if np.any(np.isfinite(base)) else 0.0
-    return np.where(np.isfinite(base), base, fill)
-
-
 def changepoint_bounds(
     depth_m,
     gr_api,
     *,
-    min_zone_m: float = 200.0,
+    min_zone_m: float = 400.0,
     min_step_api: float = 8.0,
     smooth_m: float = 15.0,
 ) -> list[int]:
-    """Sample indices where the GR baseline steps, by binary segmentation.
+    """Sample indices where the GR baseline steps.
 
     The GR is smoothed by a running median over ``smooth_m`` metres (so beds do not count
-    as steps); each segment is split at the point that minimises the summed squared
-    deviation from the two halves' means, if both halves are at least ``min_zone_m`` long
-    and their medians differ by at least ``min_step_api``.  Returns the sorted indices of
-    the first sample of every zone after the first.
+    as steps; :func:`logprep.qc.running_median`) and split into segments of constant mean
+    by the exact changepoint search of the blocking stage
+    (:func:`logprep.blocking.pelt_mean_breaks`, Killick et al. 2012) with segments at
+    least ``min_zone_m`` long and a cost per change of ``min_step_api^2 x n_min / 2``: the
+    least-squares gain of a step of ``min_step_api`` between two segments of ``n_min``
+    samples.  Neighbouring segments whose medians differ by less than ``min_step_api``
+    are then joined (smallest difference first).  Returns the sorted indices of the first
+    sample of every zone after the first.
     """
     depth = np.asarray(depth_m, dtype=float)
     gr = np.asarray(gr_api, dtype=float)
     if depth.size < 4 or not np.any(np.isfinite(gr)):
         return []
-    base = _baseline(depth, gr, smooth_m)
+    n = max(3, int(round(smooth_m / float(np.median(np.diff(depth))))))
+    base = running_median(gr, n, min_periods=1)
+    base = np.where(np.isfinite(base), base, np.nanmedian(base) if np.any(np.isfinite(base)) else 0.0)
     step = float(np.median(np.diff(depth)))
     nmin = max(2, int(round(min_zone_m / step)))
-    todo, bounds = [(0, depth.size)], []
-    while todo:
-        a, b = todo.pop()
-        x = base[a:b]
-        n = x.size
-        if n < 2 * nmin:
-            continue
-        cs = np.cumsum(x)
-        k = np.arange(nmin, n - nmin + 1)
-        left = cs[k - 1] / k
-        right = (cs[-1] - cs[k - 1]) / (n - k)
-        i = int(k[np.argmax(k * left**2 + (n - k) * right**2)])
-        if abs(np.median(x[:i]) - np.median(x[i:])) < min_step_api:
-            continue
-        bounds.append(a + i)
-        todo += [(a, a + i), (a + i, b)]
-    return sorted(bounds)
+    bounds = list(pelt_mean_breaks(base, min_step_api**2 * nmin / 2.0, nmin))
+    while bounds:
+        edges = [0] + bounds + [depth.size]
+        med = [np.median(base[a:b]) for a, b in zip(edges[:-1], edges[1:])]
+        diffs = np.abs(np.diff(med))
+        k = int(np.argmin(diffs))
+        if diffs[k] >= min_step_api:
+            break
+        del bounds[k]
+    return [int(b) for b in bounds]
 
 
 def tops_bounds(depth_m, tops_m) -> list[int]:

@@ -179,7 +179,7 @@ class ScreenSettings:
     matrix_perm_md: float = _CAP.matrix_perm_md
     faulting_depth_m: float | None = None
     zoning: str = "auto"
-    zone_min_m: float = 200.0
+    zone_min_m: float = 400.0
     zone_step_api: float = 8.0
     min_contrast: float = 0.7
     vsh_combine: str = "mean"

@@ -119,13 +119,20 @@ def clipped_flags(gr_api, min_samples: int = 3, max_fraction: float = 0.05) -> n
     return at_top if min_samples <= n <= max_fraction * finite.sum() else none
 
 
+def running_median(values, n: int, min_periods: int = 1) -> np.ndarray:
+    """Centred running median over ``n`` samples, NaN ignored; NaN where fewer than
+    ``min_periods`` valid samples are in the window."""
+    return pd.Series(np.asarray(values, dtype=float)).rolling(
+        int(n), center=True, min_periods=int(min_periods)).median().to_numpy()
+
+
 def spike_flags(gr_api, min_api: float = 25.0, n_sigma: float = 8.0, max_run: int = 2) -> np.ndarray:
     """Isolated spikes: runs of at most ``max_run`` samples departing from the centred
     7-sample running median by more than ``max(min_api, n_sigma * sigma)``, where sigma
     is the robust (1.4826 MAD) spread of all departures.  A real bed is wider than two
     samples once the tool's vertical response has smoothed it."""
     gr = np.asarray(gr_api, dtype=float)
-    med = pd.Series(gr).rolling(7, center=True, min_periods=3).median().to_numpy()
+    med = running_median(gr, 7, min_periods=3)
     resid = gr - med
     finite = np.isfinite(resid)
     if not finite.any():

@@ -63,6 +63,18 @@ def test_changepoint_finds_a_baseline_step():
     assert changepoint_bounds(z, 100 + 3 * rng.standard_normal(z.size)) == []
 
 
+def test_changepoint_joins_steps_below_the_least_step():
+    # Common practice, no source: steps of +20 API and then +4 API (below the 8 API least
+    # step): only the +20 step is a zone boundary, within 5 m; zones are >= min_zone_m.
+    rng = np.random.default_rng(5)
+    z = 1000 + 0.1524 * np.arange(9000)
+    gr = 60 + 2 * rng.standard_normal(z.size) + np.where(z > 1400.0, 20.0, 0.0) \
+        + np.where(z > 1900.0, 4.0, 0.0)
+    bounds = changepoint_bounds(z, gr, min_zone_m=300, min_step_api=8)
+    assert len(bounds) == 1 and abs(z[bounds[0]] - 1400.0) < 5.0
+    assert len(changepoint_bounds(z, gr, min_zone_m=300, min_step_api=3)) == 2
+
+
 def test_one_sided_zone_keeps_its_shale_line():
     # A zone of shale only (GR 110-120) next to a mixed zone: the shale zone keeps its
     # shale line and takes the well's contrast, so its shale stays shale (Vsh > 0.5).
@@ -215,10 +227,10 @@ def test_outputs_and_settings_via_cli(tmp_path, example_dir):
 # FORCE 2020 wells (Bormann, Aursand, Dilib, Dischington & Manral 2020, FORCE Machine
 # Learning Competition, doi:10.5281/zenodo.4351156; public data, no licence named in the
 # source repository; see ../shared/data/open_logs/PROVENANCE.md).  Sand = code 30000, shale =
-# 65000; call Vsh < 0.5 = sand.  Floors sit 0.03 below the balanced accuracy measured with
-# the default settings by bench/validate_vshale.py (0.939, 0.804, 0.866), and each well
+# 65000; call Vsh < 0.5 = sand.  Floors sit about 0.03 below the balanced accuracy measured
+# with the default settings by bench/validate_vshale.py (0.930, 0.875, 0.907), and each well
 # must beat the whole-well P5/P95 baseline measured in the same run by at least 0.05.
-FLOORS = {"31_2-1": 0.90, "31_6-5": 0.77, "33_9-1": 0.83}
+FLOORS = {"31_2-1": 0.90, "31_6-5": 0.84, "33_9-1": 0.87}
 
 
 @pytest.mark.parametrize("stem", list(FLOORS))
