@@ -216,11 +216,27 @@ def cmd_screen(args) -> int:
     from logprep.examples import example_logs_dir
 
     settings = _settings_from_args(args)
-    paths = args.paths or [example_logs_dir()]
+    paths = args.paths
+    if not paths:
+        # the bundled demo: its wells with their tops, the deviated well's survey and the
+        # pair across the fault, unless the user chose otherwise
+        demo = example_logs_dir()
+        paths = [demo]
+        given = _given_settings(args)
+        extra = {}
+        if "tops_file" not in given and not settings.tops_file:
+            extra["tops_file"] = str(demo / "tops.csv")
+        if "survey_dir" not in given and not settings.survey_dir:
+            extra["survey_dir"] = str(demo / "surveys")
+        settings = settings.updated(**extra) if extra else settings
+        if args.pairs is None:
+            args.pairs = str(demo / "pairs.csv")
     report = screen_paths(
         paths, args.out, settings,
         on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
         progress=_progress(sys.stderr),
+        jobs=args.jobs,
+        sheets=not args.no_sheet,
     )
     ok = len(report.rows) - len(report.failures)
     print(f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed; "
@@ -279,6 +295,10 @@ def build_parser() -> argparse.ArgumentParser:
     p.add_argument("--out", default="screening", metavar="DIR",
                    help="output folder (default: ./%(default)s)")
     _add_config_option(p)
+    p.add_argument("--jobs", type=int, default=1, metavar="N",
+                   help="screen wells in N worker processes (default: 1)")
+    p.add_argument("--no-sheet", action="store_true",
+                   help="write tables and fields only, no PDF/PNG sheets (fast, for large batches)")
     p.add_argument("--pairs", metavar="FILE",
                    help="also screen well pairs across a fault: CSV of footwall, hangingwall and "
                         "marker (a top in both wells, needs --tops) or shift_m; one folder per pair")

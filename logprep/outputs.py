@@ -92,15 +92,17 @@ def well_tables(result) -> dict[str, pd.DataFrame]:
     }
 
 
-def render_well(result, sheet_builder) -> dict[str, bytes]:
+def render_well(result, sheet_builder=None) -> dict[str, bytes]:
     """Every output file of one well as bytes, rendered in memory first so that a failure
-    while drawing leaves nothing half-written."""
+    while drawing leaves nothing half-written.  With no ``sheet_builder`` the sheet
+    (``sheet.pdf``, ``sheet.png``) is left out: tables only, much faster."""
     files = {name: csv_bytes(frame) for name, frame in well_tables(result).items()}
     if getattr(result, "grid", None) is not None:
         files["sgr_field.npz"] = result.grid.npz_bytes()
-    pages = sheet_builder(result)
-    files["sheet.pdf"] = pdf_bytes(pages)
-    files["sheet.png"] = png_bytes(pages[0])
+    if sheet_builder is not None:
+        pages = sheet_builder(result)
+        files["sheet.pdf"] = pdf_bytes(pages)
+        files["sheet.png"] = png_bytes(pages[0])
     files["curves.las"] = las_bytes(result)
     return files
 
