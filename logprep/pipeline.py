@@ -356,7 +356,10 @@ class ClayVolume:
     notes: tuple[str, ...]
 
 
-def _curve_in(well: WellLog, kind: str, sl: slice, convert):
+def _curve_in(well: WellLog, kind: str, sl: slice, convert, notes: list[str]):
+    """An auxiliary curve (caliper, bit size, neutron, density...) in logprep's units, or
+    None when the well has none.  A unit logprep cannot convert leaves the curve out with a
+    note (on the sheet) rather than failing the well: the gamma ray alone still screens it."""
     found = well_curve(well, kind)
     if found is None:
         return None
@@ -364,7 +367,8 @@ def _curve_in(well: WellLog, kind: str, sl: slice, convert):
     try:
         return convert(values[sl], unit)
     except SettingsError as exc:
-        raise SettingsError(f"{well.source}: {exc}") from None
+        notes.append(f"{kind.upper()} not used: {exc}")
+        return None
 
 
 def clay_volume(well: WellLog, settings: ScreenSettings = ScreenSettings(),
@@ -382,8 +386,8 @@ def clay_volume(well: WellLog, settings: ScreenSettings = ScreenSettings(),
     sl = slice(valid[0], valid[-1] + 1)
     depth, gr_read = well.depth_m[sl], gr_all[sl]
     notes = []
-    cali = _curve_in(well, "cali", sl, inches)
-    bs = _curve_in(well, "bs", sl, inches)
+    cali = _curve_in(well, "cali", sl, inches, notes)
+    bs = _curve_in(well, "bs", sl, inches, notes)
     flags = gr_flags(depth, gr_read, cali_in=cali, bs_in=bs,
                      settings=QcSettings(washout_in=settings.washout_in))
     gr = np.where(any_flag(flags, REPLACED), np.nan, gr_read)
@@ -405,10 +409,10 @@ def clay_volume(well: WellLog, settings: ScreenSettings = ScreenSettings(),
     vsh_gr = get_transform(settings.transform)(gamma_ray_index(gr, clean_line, shale_line))
 
     vsh_nd = np.full(depth.size, np.nan)
-    nphi = _curve_in(well, "nphi", sl, neutron_v_v)
-    rhob = _curve_in(well, "rhob", sl, density_g_cm3)
+    nphi = _curve_in(well, "nphi", sl, neutron_v_v, notes)
+    rhob = _curve_in(well, "rhob", sl, density_g_cm3, notes)
     flags["gas_crossover"] = np.zeros(depth.size, dtype=bool)
-    drho = _curve_in(well, "drho", sl, density_correction_g_cm3)
+    drho = _curve_in(well, "drho", sl, density_correction_g_cm3, notes)
     flags["bad_density"] = (density_correction_flags(drho, settings.drho_max_g_cm3)
                             if drho is not None else np.zeros(depth.size, dtype=bool))
     if nphi is not None and rhob is not None and settings.vsh_combine != "gr":

@@ -49,3 +49,13 @@ def test_demo_run_uses_bundled_tops_survey_and_pair(tmp_path, monkeypatch):
     pairs = pd.read_csv(out / "pairs_summary.csv")
     assert pairs["status"].tolist() == ["ok"]
     assert (out / pairs["folder"].iloc[0] / "juxtapositions.csv").exists()
+
+
+def test_unreadable_auxiliary_unit_leaves_curve_out_not_the_well():
+    # CWLS LAS 1.2 wrapped example (via lasio, MIT): GR present, density unit 'K/M' as read.
+    from conftest import open_logs_path
+    from logprep.pipeline import screen_file
+
+    r = screen_file(open_logs_path("las_standard_examples", "1.2", "sample_wrapped.las"))
+    assert any(n.startswith("RHOB not used: bulk-density unit 'K/M'") for n in r.notes)
+    assert len(r.layers) >= 1
