@@ -19,8 +19,10 @@ uniform grid of "nodes" at the log's sample step.  ``C(z - t)`` for a whole thro
 is a shifted slice of the node values plus one constant-fraction linear interpolation, so
 the field costs a few array passes per throw column, linear in the number of cells.  The
 result is exact wherever the breakpoints of ``C`` lie on nodes (true for both sources on a
-uniformly sampled log); otherwise the error is at most ``100 g / (4 |t|)`` % for node step
-``g`` (linear interpolation of a kink of slope change <= 1).
+uniformly sampled log).  Where they do not (an uneven depth axis, such as the TVD of a
+deviated well), node interpolation would blur every kink, worst in the ``t -> 0`` column,
+so the field is then evaluated exactly, ``C`` interpolated at ``z - t`` per throw column
+(:func:`logprep.juxtaposition.sgr_from_cumulative_pct`), at a few times the cost.
 
 Convention: normal fault, hanging wall down, ``t > 0``; a negative throw (reverse fault)
 takes the slipped interval ``[z, z - t]`` below ``z`` and falls out of the same formula.
@@ -41,7 +43,9 @@ import numpy as np
 
 from logprep.blocking import sample_edges_m
 from logprep.errors import SettingsError
-from logprep.juxtaposition import JUXTAPOSITION_CLASSES, _PAIR_CODE, cumulative_clay
+from logprep.juxtaposition import (
+    JUXTAPOSITION_CLASSES, _PAIR_CODE, cumulative_clay, juxtaposition_grid, sgr_from_cumulative_pct,
+)
 from logprep.model import Layers
 
 SGR_FIELD_SOURCES = {
@@ -155,6 +159,12 @@ class _Nodes:
         return q, f
 
 
+def breaks_on_nodes(bounds_m, top_m: float, g: float) -> bool:
+    """True when every breakpoint lies on a node ``top + k g`` (within 1e-6 of a step)."""
+    k = (np.asarray(bounds_m, float) - top_m) / g
+    return bool(np.all(np.abs(k - np.round(k)) < 1e-6))
+
+
 def sgr_field_pct(bounds_m, clay_m, g: float, throw_m, rows_every: int = 1,
                   dtype=np.float32) -> tuple[np.ndarray, np.ndarray]:
     """SGR (%) on rows ``top + i * rows_every * g`` x ``throw_m`` from a cumulative clay
@@ -186,8 +196,13 @@ def sgr_field_pct(bounds_m, clay_m, g: float, throw_m, rows_every: int = 1,
     nz = rows.size
     span = (nz - 1) * m + 1
     depth = nodes.top + g * rows
-    Cz = E[P:P + span:m]
     out = np.empty((throw.size, nz), dtype=dtype)
+    if not breaks_on_nodes(bounds_m, nodes.top, g):
+        # uneven depth axis (e.g. TVD of a deviated well): exact per throw column
+        for j, t in enumerate(throw):
+            out[j] = sgr_from_cumulative_pct(bounds_m, clay_m, depth, t)
+        return depth, out.T
+    Cz = E[P:P + span:m]
     buf = np.empty(nz)
     # slope just above each row (the first row takes the slope below): the t -> 0 limit
     above = dE[P:P + span:m].copy()
@@ -219,6 +234,8 @@ def juxtaposition_field(layers: Layers, g: float, throw_m, rows_every: int = 1) 
     bounds, clay = cumulative_clay(layers)
     nodes = _Nodes(bounds, clay, g, float(np.abs(throw).max(initial=0.0)))
     K, P = nodes.K, nodes.pad
+    if not breaks_on_nodes(bounds, nodes.top, g):
+        return juxtaposition_grid(layers, nodes.top + g * np.arange(0, K + 1, m), throw)
     mid = nodes.top + g * (np.arange(max(K, 1)) + 0.5)
     code = layers.lithology_code[np.clip(np.searchsorted(layers.base_m, mid, side="right"),
                                          0, len(layers) - 1)]

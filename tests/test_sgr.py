@@ -199,3 +199,28 @@ def test_cli_writes_sgr_field(tmp_path, example_dir):
     top = z["depth_m"][0]
     above = (z["depth_m"][:, None] - z["throw_m"][None, :]) < top - 1e-6
     assert np.array_equal(np.isnan(s), above)
+
+
+def test_field_exact_when_boundaries_are_off_the_nodes():
+    # A deviated well screened on TVD has an uneven depth axis (the TVD step shrinks as
+    # the hole builds angle), so its layer boundaries and sample edges do not fall on the
+    # field's uniform nodes.  The field must still be the SGR of the definition
+    # (Yielding, Freeman & Needham 1997: 100/t x clay in [z - t, z]) at every grid point,
+    # including the t -> 0 column (100 x Vsh just above z), and the juxtaposition codes
+    # must be those of the point route.  Hand-worked stand-in for such a log: MD samples
+    # every 0.1524 m mapped through TVD = MD cos(inc) with inc rising 0 -> 40 degrees.
+    rng = np.random.default_rng(5)
+    md = 2000 + 0.1524 * np.arange(2400)
+    tvd = 2000 + np.cumsum(np.concatenate(([0.0], np.diff(md) * np.cos(np.radians(np.linspace(0, 40, md.size - 1))))))
+    vsh = np.clip(np.repeat(rng.uniform(0, 1, 48), 50) + rng.normal(0, 0.03, md.size), 0, 1)
+    L = block_cutoff(tvd, vsh, sand_cutoff=0.35, shale_cutoff=0.65, min_bed_m=1.0)
+    for source in ("layers", "curve"):
+        f = sgr_field(L, tvd, vsh, throw_max_m=60, throw_step_m=1.0, depth_step_m=0.5, source=source)
+        bounds, clay = (cumulative_clay(L) if source == "layers"
+                        else cumulative_clay_curve(tvd, vsh))
+        from logprep.juxtaposition import sgr_from_cumulative_pct
+        ref = sgr_from_cumulative_pct(bounds, clay, f.depth_m[:, None], f.throw_m[None, :])
+        assert np.array_equal(np.isfinite(f.sgr_pct), np.isfinite(ref))
+        # float32 storage of a percentage: 1e-3 % absolute
+        np.testing.assert_allclose(f.sgr_pct, ref, atol=1e-3, equal_nan=True)
+        assert np.array_equal(f.juxtaposition, juxtaposition_grid(L, f.depth_m, f.throw_m))
