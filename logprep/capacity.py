@@ -43,6 +43,7 @@ import pandas as pd
 from logprep import faultrock
 from logprep.errors import SettingsError
 from logprep.juxtaposition import cumulative_clay
+from logprep.lasread import DEPTH_UNITS_M
 from logprep.model import Layers, WellLog
 from logprep.units import G_MPS2, LENGTH_UNITS, PA_PER_BAR
 
@@ -173,7 +174,7 @@ def depth_datum(well: WellLog) -> tuple[float | None, str]:
     The reference is named by ``EREF``, ``DREF`` or ``DMF`` (``KB``, ``DF``, ``RT``, ``GL``)
     and its elevation by ``EKB``, ``EDF``, ``ERT`` or ``EGL``; without a reference item the
     first of ``EKB``, ``EDF``, ``ERT`` found is used.  The unit of the item is honoured
-    (metres or feet).
+    (metres or feet); an item without a unit is taken in the file's depth unit.
     """
     header = {k.upper(): v for k, v in well.header.items()}
     units = {k.upper(): v for k, v in getattr(well, "header_units", {}).items()}
@@ -187,11 +188,12 @@ def depth_datum(well: WellLog) -> tuple[float | None, str]:
             continue
         if not math.isfinite(value):
             continue
-        unit = units.get(key, "").strip().upper()
-        factor = {"M": 1.0, "": 1.0, "F": 0.3048, "FT": 0.3048, "FEET": 0.3048}.get(unit)
+        # an item without a unit is in the file's depth unit
+        unit = (units.get(key, "").strip() or str(getattr(well, "depth_unit", "") or "")).strip().upper()
+        factor = {"": 1.0, **DEPTH_UNITS_M}.get(unit)
         if factor is None:
             continue
-        note = f"{key} {value:g} {unit.lower() or 'm'}"
+        note = f"{key} {value:g} {'m' if factor == 1.0 else 'ft'}"
         return value * factor, note
     return None, "no elevation in the LAS header"
 

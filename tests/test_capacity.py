@@ -234,6 +234,17 @@ def test_depth_datum_from_header():
     assert depth_datum(_well({"EKB": "abc"}, {}))[0] is None
 
 
+def test_depth_datum_without_unit_takes_the_depth_unit():
+    # Hand-worked: an elevation item with no unit in a file whose depths are in feet is in
+    # feet (the file's depth unit; common practice, no source): 85 ft = 25.908 m
+    # (1 ft = 0.3048 m exactly), not 85 m, which would put every contact 59 m too shallow.
+    ft = WellLog("W", "w.las", "0", [0.0, 0.3048], {"GR": [1.0, 2.0]}, {"GR": "gAPI"}, "FT",
+                 "GR", {"EKB": "85"}, {"EKB": ""})
+    datum, note = depth_datum(ft)
+    assert datum == pytest.approx(85 * 0.3048, abs=1e-12) and note.endswith("ft")
+    assert depth_datum(_well({"EKB": "85"}, {}))[0] == 85.0  # metre file: metres
+
+
 def test_depth_datum_of_the_feet_example_well(example_dir):
     # HRM-3 (invented example) gives EKB in feet; the other wells in metres.
     from logprep.lasread import read_well
