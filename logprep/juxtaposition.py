@@ -77,6 +77,17 @@ def contact_length_m(f_top_m, f_base_m, h_top_m, h_base_m, throw_m):
     )
 
 
+def max_contact_m(f_top_m, f_base_m, h_top_m, h_base_m, throw_min_m, throw_max_m) -> float:
+    """Largest contact length (m) of two beds over throws in ``[throw_min_m, throw_max_m]``.
+
+    :func:`contact_length_m` is a trapezoid in t with corners at ``f_top - h_top`` and
+    ``f_base - h_base``, so its maximum over an interval is at an end or a corner inside.
+    """
+    lo, hi = float(throw_min_m), float(throw_max_m)
+    t = [lo, hi] + [x for x in (f_top_m - h_top_m, f_base_m - h_base_m) if lo < x < hi]
+    return float(np.max(contact_length_m(f_top_m, f_base_m, h_top_m, h_base_m, np.array(t))))
+
+
 def cumulative_clay(layers: Layers) -> tuple[np.ndarray, np.ndarray]:
     """Layer boundaries (metres) and the clay thickness above each, ``C(z)`` in metres.
 
@@ -184,8 +195,8 @@ def sand_windows(layers: Layers, throw_max_m: float, lithology: str = "sand") ->
 
     Returns a frame with :data:`WINDOW_COLUMNS` plus ``footwall_layer``,
     ``hangingwall_layer`` (indices into ``layers``), ``self_juxtaposed`` and
-    ``max_contact_m``.  ``throw_max_m`` of a window is capped at the screened maximum
-    throw; ``sgr_min_pct`` / ``sgr_max_pct`` are the exact extremes of SGR over the pair's
+    ``max_contact_m`` (the largest contact over the window's throws).  ``throw_max_m`` of
+    a window is capped at the screened maximum throw; ``sgr_min_pct`` / ``sgr_max_pct`` are the exact extremes of SGR over the pair's
     contact area within that throw range.
     """
     if throw_max_m <= 0:
@@ -212,7 +223,7 @@ def sand_windows(layers: Layers, throw_max_m: float, lithology: str = "sand") ->
                     "sgr_min_pct": smin, "sgr_max_pct": smax,
                     "footwall_layer": fi, "hangingwall_layer": hi,
                     "self_juxtaposed": fi == hi,
-                    "max_contact_m": min(b - a, e - c),
+                    "max_contact_m": max_contact_m(a, b, c, e, lo, hi_cap),
                 }
             )
     cols = WINDOW_COLUMNS + ["footwall_layer", "hangingwall_layer", "self_juxtaposed", "max_contact_m"]

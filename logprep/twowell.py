@@ -29,7 +29,7 @@ import pandas as pd
 
 from logprep.errors import LogprepError
 from logprep.juxtaposition import (
-    _PAIR_CODE, WINDOW_COLUMNS, cumulative_clay, juxtaposition_throw_range, layer_index,
+    _PAIR_CODE, WINDOW_COLUMNS, cumulative_clay, juxtaposition_throw_range, layer_index, max_contact_m,
     sgr_from_cumulative_pct,
 )
 from logprep.model import Layers
@@ -157,6 +157,6 @@ def two_well_windows(fw: Layers, hw: Layers, shift_m: float, throw_max_m: float,
                 "sgr_min_pct": float(s.min()) if s.size else np.nan,
                 "sgr_max_pct": float(s.max()) if s.size else np.nan,
                 "footwall_layer": fi, "hangingwall_layer": hi,
-                "max_contact_m": min(b - a, e - c),
+                "max_contact_m": max_contact_m(a, b, c - shift_m, e - shift_m, lo, cap),
             })
     return pd.DataFrame(rows, columns=PAIR_WINDOW_COLUMNS)

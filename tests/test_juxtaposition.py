@@ -47,6 +47,20 @@ def test_contact_length_check():
     np.testing.assert_allclose(contact_length_m(100, 130, 60, 80, t), [0, 10, 20, 20, 20, 10, 0])
 
 
+def test_max_contact_within_the_screened_throws():
+    # METHODS.md s.3 [D]: [100,130] vs [60,80] touch for 20 < t < 70 with contact 0, 10,
+    # 20, 20, 20, 10, 0 m at t = 20, 30, 40, 45, 50, 60, 70.  Screened to t <= 30 the
+    # largest contact the window reaches is 10 m (at t = 30), to t <= 100 it is 20 m.
+    L = layers([60, 80, 100, 130], [0.1, 0.9, 0.1])
+    for cap, expect in ((30.0, 10.0), (100.0, 20.0), (65.0, 20.0)):
+        w = sand_windows(L, throw_max_m=cap)
+        r = w[(w.footwall_layer == 2) & (w.hangingwall_layer == 0)].iloc[0]
+        assert r.max_contact_m == pytest.approx(expect, abs=1e-12)
+    # a sand against itself: contact T - t, largest at the smallest throw
+    w = sand_windows(L, throw_max_m=5.0)
+    assert w[w.self_juxtaposed].max_contact_m.tolist() == [20.0, 30.0]
+
+
 def test_bed_faces_itself_below_its_thickness():
     # METHODS.md s.3: a bed of thickness T faces itself for 0 <= t < T.
     lo, hi = juxtaposition_throw_range(40, 55, 40, 55)

@@ -118,3 +118,13 @@ def test_pairs_bad_rows_are_reported(tmp_path, example_dir, capsys):
     assert all(len(line) < 300 for line in err.splitlines())
     summary = pd.read_csv(out / "pairs_summary.csv")
     assert list(summary["status"]) == ["error", "error"]
+
+
+def test_window_max_contact_within_the_screened_throws():
+    # Hand-worked: footwall sand A[60, 100] (40 m) against B[0, 70] (70 m), in the
+    # footwall's frame [-20, 50].  Contact L(t) = min(100, 50 + t) - max(60, -20 + t):
+    # L(10) = 0, L(30) = 20, L(50) = 40 (= the footwall sand, up to t = 80).
+    for cap, expect in ((30.0, 20.0), (100.0, 40.0)):
+        w = two_well_windows(A, B, SHIFT, cap, "footwall")
+        row = w[(w.footwall_layer == 2) & (w.hangingwall_layer == 0)].iloc[0]
+        assert row.max_contact_m == pytest.approx(expect, abs=1e-12)
