@@ -234,7 +234,10 @@ def density_porosity(rhob_g_cm3, rho_matrix_g_cm3: float = 2.65, rho_fluid_g_cm3
     rhob_g_cm3 : array_like
         Bulk density, g/cm3.
     rho_matrix_g_cm3 : float, default 2.65
-        Matrix density (quartz sandstone, the matrix the neutron of most logs is scaled to).
+        Matrix density (quartz sandstone).  It should match the matrix the neutron curve
+        is scaled to; many neutron logs are recorded on a limestone scale (2.71), and a
+        sandstone-scaled density porosity against them reads a few porosity units above
+        the neutron in clean water sands (common practice, no source).
     rho_fluid_g_cm3 : float, default 1.0
         Pore-fluid density (fresh water; mud filtrate near 1.0-1.1).
 
