@@ -8,8 +8,9 @@ from typing import Callable, Iterable
 
 from logprep.config import SETTINGS_FILE_NAME, write_settings
 from logprep.errors import LogprepError
-from logprep.outputs import folder_name, render_well, write_summary, write_well
+from logprep.outputs import folder_name, prepare_out_dir, render_well, write_summary, write_well
 from logprep.pipeline import ScreenSettings, screen_file
+from logprep.survey import check_survey_dir
 from logprep.tops import read_tops
 
 
@@ -102,7 +103,11 @@ def screen_paths(
         raise LogprepError(f"no .las files found in {', '.join(map(str, paths))}")
     if jobs < 1:
         raise LogprepError(f"--jobs must be 1 or more (got {jobs})")
+    # inputs shared by every well are checked once, before any well is screened
+    prepare_out_dir(out)
     tops = read_tops(settings.tops_file) if settings.tops_file else None
+    if settings.survey_dir:
+        check_survey_dir(settings.survey_dir)
     write_settings(out / SETTINGS_FILE_NAME, settings)
     taken: set[str] = set()
     folders = [folder_name(f, taken) for f in files]

@@ -231,6 +231,10 @@ def cmd_screen(args) -> int:
         settings = settings.updated(**extra) if extra else settings
         if args.pairs is None:
             args.pairs = str(demo / "pairs.csv")
+    if args.pairs:
+        from logprep.pairs import read_pairs
+
+        read_pairs(args.pairs)  # a bad pairs file is a usage error, found before the wells run
     report = screen_paths(
         paths, args.out, settings,
         on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
@@ -258,8 +262,11 @@ def cmd_tune(args) -> int:
     from logprep.tune import DEFAULT_MIN_BEDS_M, DEFAULT_SAND_CUTOFFS, DEFAULT_SHALE_CUTOFFS
     from logprep.tune import sweep_file, write_sweep
 
+    from logprep.outputs import prepare_out_dir
+
     settings = _settings_from_args(args)
     _, ranges = _config_from_args(args)
+    prepare_out_dir(args.out)  # before the sweep, not after it
     for key in ("sand_sweep", "shale_sweep", "bed_sweep"):
         if getattr(args, key) is not None:
             ranges[key] = getattr(args, key)
@@ -289,6 +296,10 @@ def build_parser() -> argparse.ArgumentParser:
         "screen", help="screen LAS files (default: the bundled example logs)",
         description="Screen every LAS file under PATHS (files or folders, searched "
                     "recursively) and write one folder of results per file under --out.",
+        epilog="Exit status: 0 every file screened; 1 some files failed (each named on one "
+               "line of stderr and in summary.csv, the others screened as usual); 2 a usage "
+               "error (an option, --config, --tops, --survey-dir, --pairs or --out), found "
+               "before any well is screened.",
     )
     p.add_argument("paths", nargs="*", metavar="PATH",
                    help="LAS files or folders (default: the bundled example logs)")

@@ -227,4 +227,8 @@ def sand_windows(layers: Layers, throw_max_m: float, lithology: str = "sand") ->
                 }
             )
     cols = WINDOW_COLUMNS + ["footwall_layer", "hangingwall_layer", "self_juxtaposed", "max_contact_m"]
-    return pd.DataFrame(rows, columns=cols)
+    # typed even when empty: a well with no sand-sand window (all shale, one sand bed)
+    # must still give a boolean ``self_juxtaposed`` that can mask the frame
+    dtypes = {c: float for c in cols} | {"footwall_layer": int, "hangingwall_layer": int,
+                                         "self_juxtaposed": bool}
+    return pd.DataFrame(rows, columns=cols).astype(dtypes)

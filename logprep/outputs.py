@@ -4,9 +4,11 @@ interrupted run never leaves a half-written file and earlier results stay until 
 from __future__ import annotations
 
 import io
+from contextlib import contextmanager
 import os
 import re
 import tempfile
+import warnings
 from pathlib import Path
 
 import pandas as pd
@@ -40,13 +42,39 @@ def write_bytes_atomic(path: Path, data: bytes) -> None:
         raise OutputError(f"{path}: cannot write ({exc.strerror or exc})") from exc
 
 
+def prepare_out_dir(out_dir: str | Path) -> Path:
+    """Make the output folder (and its parents) before any work, so that an ``--out`` that
+    names a file or a folder that cannot be made fails at once with one message."""
+    out = Path(out_dir)
+    if out.exists() and not out.is_dir():
+        raise OutputError(f"{out}: a file of that name exists; --out must name a folder")
+    try:
+        out.mkdir(parents=True, exist_ok=True)
+    except OSError as exc:
+        raise OutputError(f"{out}: cannot make the output folder ({exc.strerror or exc}); "
+                          "choose another --out") from exc
+    return out
+
+
 def csv_bytes(frame: pd.DataFrame) -> bytes:
     return frame.to_csv(index=False, float_format="%.10g", lineterminator="\n").encode()
 
 
+@contextmanager
+def _missing_glyphs_quiet():
+    """A context in which matplotlib's one-warning-per-character about letters missing from
+    the font (a well or file named in a script the font lacks) is not printed: those
+    letters are drawn as boxes, and the tables keep the names intact."""
+    with warnings.catch_warnings():
+        warnings.filterwarnings("ignore", message=r"Glyph \d+ .*missing from font",
+                                category=UserWarning)
+        yield
+
+
 def pdf_bytes(figures) -> bytes:
     buf = io.BytesIO()
-    with PdfPages(buf, metadata={"Creator": "logprep", "Title": "fault-seal screening sheet"}) as pdf:
+    with _missing_glyphs_quiet(), \
+            PdfPages(buf, metadata={"Creator": "logprep", "Title": "fault-seal screening sheet"}) as pdf:
         for fig in figures:
             FigureCanvasAgg(fig)
             pdf.savefig(fig)
@@ -56,11 +84,15 @@ def pdf_bytes(figures) -> bytes:
 def png_bytes(figure, dpi: int = 110) -> bytes:
     buf = io.BytesIO()
     FigureCanvasAgg(figure)
-    figure.savefig(buf, format="png", dpi=dpi)
+    with _missing_glyphs_quiet():
+        figure.savefig(buf, format="png", dpi=dpi)
     return buf.getvalue()
 
 
 _UNSAFE = re.compile(r"[^A-Za-z0-9._-]+")
+
+RESERVED_NAMES = ("summary.csv", "pairs_summary.csv", "logprep-settings.toml")
+"""Files a run writes at the top of its output folder: no well folder may take their name."""
 
 
 def folder_name(source: str | Path, taken: set[str]) -> str:
@@ -69,7 +101,7 @@ def folder_name(source: str | Path, taken: set[str]) -> str:
     (compared case-insensitively).  The name is added to ``taken``."""
     base = _UNSAFE.sub("_", Path(source).stem).lstrip(".") or "well"
     name, k = base, 2
-    while name.lower() in taken or name.lower() == "summary.csv":
+    while name.lower() in taken or name.lower() in RESERVED_NAMES:
         name, k = f"{base}-{k}", k + 1
     taken.add(name.lower())
     return name

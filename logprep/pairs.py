@@ -16,6 +16,7 @@ from typing import Callable, Iterable
 import numpy as np
 import pandas as pd
 
+from logprep.csvtable import parse_number, read_csv_table
 from logprep.errors import LogprepError
 from logprep.outputs import csv_bytes, folder_name, pdf_bytes, png_bytes, write_bytes_atomic
 from logprep.tops import well_key
@@ -28,10 +29,7 @@ PAIRS_SUMMARY_COLUMNS = ["footwall", "hangingwall", "marker", "shift_m", "slip_s
 def read_pairs(path: str | Path) -> pd.DataFrame:
     """The pairs CSV as a frame with columns ``footwall, hangingwall, marker, shift_m``."""
     path = Path(path)
-    try:
-        df = pd.read_csv(path, skipinitialspace=True, dtype=str, keep_default_na=False)
-    except (OSError, ValueError, pd.errors.ParserError) as exc:
-        raise PairError(f"{path}: not a readable pairs CSV ({exc})") from None
+    df = read_csv_table(path, PairError, "pairs CSV", dtype=str, keep_default_na=False)
     df.columns = [str(c).strip().lower() for c in df.columns]
     missing = [c for c in ("footwall", "hangingwall") if c not in df.columns]
     if missing or not ({"marker", "shift_m"} & set(df.columns)):
@@ -48,7 +46,7 @@ def read_pairs(path: str | Path) -> pd.DataFrame:
             raise PairError(f"{path}: line {k}: give a marker or a shift_m")
         if row.shift_m and not row.marker:
             try:
-                float(row.shift_m)
+                parse_number(row.shift_m)
             except ValueError:
                 raise PairError(f"{path}: line {k}: shift_m {row.shift_m!r} is not a number") from None
     return df
@@ -153,7 +151,7 @@ def screen_pairs(
                     raise PairError(f"marker {p.marker!r} needs a tops file (--tops)")
                 shift = marker_shift_m(fw.tops, hw.tops, p.marker, p.footwall, p.hangingwall)
             else:
-                shift = float(p.shift_m)
+                shift = parse_number(p.shift_m)
             windows = two_well_windows(fw.layers, hw.layers, shift, settings.throw_max_m,
                                        settings.pair_slip_source)
             step = settings.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))

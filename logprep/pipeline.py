@@ -7,7 +7,7 @@
 
 from __future__ import annotations
 
-from dataclasses import asdict, dataclass, field, replace
+from dataclasses import asdict, dataclass, field, fields, replace
 from pathlib import Path
 
 import numpy as np
@@ -195,6 +195,11 @@ class ScreenSettings:
     pair_slip_source: str = "footwall"
 
     def __post_init__(self) -> None:
+        for f in fields(self):
+            value = getattr(self, f.name)
+            if isinstance(value, (int, float)) and not isinstance(value, bool) \
+                    and not np.isfinite(value):
+                raise SettingsError(f"setting {f.name} must be a finite number (got {value})")
         get_transform(self.transform)
         get_combination(self.vsh_combine)
         if self.zoning not in ZONINGS:

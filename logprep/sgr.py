@@ -121,6 +121,12 @@ def node_step_m(depth_m) -> float:
     return float(np.median(d))
 
 
+MAX_FIELD_CELLS = 50_000_000
+"""Largest SGR field (depth rows x throws) computed: about 1 GB with the smear fields.
+A field larger than this is almost always a step or a maximum throw given in the wrong
+unit, so it is refused with a message instead of exhausting the memory."""
+
+
 def throw_axis_m(throw_max_m: float, throw_step_m: float, throw_min_m: float = 0.0) -> np.ndarray:
     """Throws ``throw_min_m, ..., throw_max_m`` in steps of ``throw_step_m`` (the last step
     may be shorter so that ``throw_max_m`` is included)."""
@@ -306,6 +312,12 @@ def sgr_field(layers: Layers, depth_m, vsh, *, throw_max_m: float, throw_step_m:
     g = node_step_m(depth_m)
     m = 1 if depth_step_m is None else max(1, int(round(depth_step_m / g)))
     throw = throw_axis_m(throw_max_m, throw_step_m, throw_min_m)
+    rows = int((np.asarray(depth_m)[-1] - np.asarray(depth_m)[0]) / (m * g)) + 2
+    if rows * throw.size > MAX_FIELD_CELLS:
+        raise SettingsError(
+            f"the SGR field would have {rows * throw.size / 1e6:.0f} million cells ({rows} depths "
+            f"x {throw.size} throws, limit {MAX_FIELD_CELLS / 1e6:.0f} million); raise "
+            "--field-throw-step or --field-depth-step, or lower --throw-max")
     bounds, clay = layered_or_curve_clay(source, layers, depth_m, vsh)
     # both sources share the column of the blocked layers (the sample edges)
     depth, sgr = sgr_field_pct(bounds, clay, g, throw, rows_every=m)

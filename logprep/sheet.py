@@ -120,6 +120,27 @@ def sgr_levels(threshold_pct: float) -> list[float]:
     return sorted({float(threshold_pct), *map(float, SGR_CONTOURS_PCT)})
 
 
+def contourable(z) -> bool:
+    """Whether a field can be contoured: matplotlib needs at least 2 x 2 values (a very short
+    log or a single throw column gives fewer; the field is then drawn as colour only)."""
+    return np.ndim(z) == 2 and min(np.shape(z)) >= 2
+
+
+def draw_contours(ax, x, y, z, levels, fmt: str, **kwargs):
+    """Labelled contours of ``z`` at ``levels``, or nothing when ``z`` is too small."""
+    if not contourable(z):
+        return None
+    cs = ax.contour(x, y, z, levels=levels, **kwargs)
+    ax.clabel(cs, fmt=fmt, fontsize=6)
+    return cs
+
+
+def field_ylim(depth, dz: float) -> tuple[float, float]:
+    """Depth-axis limits (deepest first) of a field drawn row by row; a single row keeps
+    its own thickness ``dz`` so that the axis is never singular."""
+    return (depth[-1], depth[0]) if depth.size > 1 else (depth[0] + dz / 2, depth[0] - dz / 2)
+
+
 def draw_field(ax, grid, *, threshold_pct: float, throw_max_m: float, windows=None,
                labelled=(), hw_shift_m: float = 0.0):
     """Triangle diagram from an :class:`~logprep.sgr.SgrField`: SGR as colour, contours at
@@ -140,7 +161,7 @@ def draw_field(ax, grid, *, threshold_pct: float, throw_max_m: float, windows=No
     im = ax.imshow(np.ma.masked_invalid(sgr), cmap=cmap, vmin=0, vmax=100, aspect="auto",
                    interpolation="nearest", origin="upper", rasterized=True,
                    extent=(throw[0] - dt / 2, throw[-1] + dt / 2, depth[-1] + dz / 2, depth[0] - dz / 2))
-    for code, hatch in CLASS_HATCHES.items():
+    for code, hatch in CLASS_HATCHES.items() if contourable(jux) else ():
         cf = ax.contourf(throw, depth, (jux == code).astype(np.float32), levels=[0.5, 1.5],
                          colors="none", hatches=[hatch])
         cf.set_edgecolor("#FFFFFF")
@@ -148,8 +169,7 @@ def draw_field(ax, grid, *, threshold_pct: float, throw_max_m: float, windows=No
         cf.set_rasterized(True)  # hatching as vector paths is slow to write and to view
     levels = sgr_levels(threshold_pct)
     widths = [1.6 if lv == threshold_pct else 0.6 for lv in levels]
-    cs = ax.contour(throw, depth, sgr, levels=levels, colors=INK, linewidths=widths)
-    ax.clabel(cs, fmt="%g%%", fontsize=6)
+    draw_contours(ax, throw, depth, sgr, levels, "%g%%", colors=INK, linewidths=widths)
     if windows is not None and len(windows):
         polys = {}  # row number (from 1) -> outline, for windows between different sands
         for k, w in enumerate(windows.itertuples(), start=1):
@@ -172,7 +192,7 @@ def draw_field(ax, grid, *, threshold_pct: float, throw_max_m: float, windows=No
                 ax.text(tmid, zmid, str(k), fontsize=6.5, ha="center", va="center",
                         bbox=dict(boxstyle="round,pad=0.15", fc="white", ec=WINDOW_INK, lw=0.6))
     ax.set_xlim(min(0.0, throw[0]), throw_max_m)
-    ax.set_ylim(depth[-1], depth[0])
+    ax.set_ylim(*field_ylim(depth, dz))
     return im
 
 

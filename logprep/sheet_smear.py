@@ -31,7 +31,7 @@ def _outline_windows(ax, windows, throw_max_m, ink):
 
 
 def _image(ax, grid, values, cmap, norm):
-    from logprep.sheet import MAX_DRAWN_ROWS, NO_DATA
+    from logprep.sheet import MAX_DRAWN_ROWS, NO_DATA, field_ylim
 
     step = max(1, int(np.ceil(grid.depth_m.size / MAX_DRAWN_ROWS)))
     depth, throw = grid.depth_m[::step], grid.throw_m
@@ -42,14 +42,14 @@ def _image(ax, grid, values, cmap, norm):
                    cmap=matplotlib.colormaps[cmap].with_extremes(bad=NO_DATA), norm=norm,
                    aspect="auto", interpolation="nearest", origin="upper", rasterized=True,
                    extent=(throw[0] - dt / 2, throw[-1] + dt / 2, depth[-1] + dz / 2, depth[0] - dz / 2))
-    ax.set_ylim(depth[-1], depth[0])
+    ax.set_ylim(*field_ylim(depth, dz))
     ax.set_xlim(min(0.0, throw[0]), throw[-1])
     return depth, throw, v, im
 
 
 def smear_page(result) -> list[Figure]:
     """SSF and CSP fields of the well, sand-sand windows outlined."""
-    from logprep.sheet import INK, PAGE_SIZE_IN, WINDOW_INK, draw_footer
+    from logprep.sheet import INK, PAGE_SIZE_IN, WINDOW_INK, draw_contours, draw_footer
 
     grid = result.grid
     if grid is None or "ssf" not in grid.extra:
@@ -65,8 +65,8 @@ def smear_page(result) -> list[Figure]:
     depth, throw, ssf, im = _image(ax1, grid, grid.extra["ssf"], "viridis",
                                    matplotlib.colors.Normalize(*SSF_RANGE))
     finite = np.where(np.isfinite(ssf), ssf, np.where(np.isinf(ssf), 1e6, np.nan))
-    cs = ax1.contour(throw, depth, finite, levels=SSF_CONTOURS, colors=INK, linewidths=[0.7, 1.6])
-    ax1.clabel(cs, fmt="SSF %g", fontsize=6)
+    draw_contours(ax1, throw, depth, finite, SSF_CONTOURS, "SSF %g", colors=INK,
+                  linewidths=[0.7, 1.6])
     _outline_windows(ax1, result.windows, throw_max, WINDOW_INK)
     cb = fig.colorbar(im, ax=ax1, orientation="horizontal", fraction=0.04, pad=0.08, extend="max")
     cb.set_label("SSF = throw / thickness of the thickest shale bed passed (bold: 7, above which "
@@ -77,8 +77,7 @@ def smear_page(result) -> list[Figure]:
 
     depth, throw, csp, im = _image(ax2, grid, np.maximum(grid.extra["csp_m"], CSP_RANGE_M[0]),
                                    "viridis", LogNorm(*CSP_RANGE_M))
-    cs = ax2.contour(throw, depth, csp, levels=CSP_CONTOURS_M, colors=INK, linewidths=0.7)
-    ax2.clabel(cs, fmt="%g m", fontsize=6)
+    draw_contours(ax2, throw, depth, csp, CSP_CONTOURS_M, "%g m", colors=INK, linewidths=0.7)
     _outline_windows(ax2, result.windows, throw_max, WINDOW_INK)
     cb = fig.colorbar(im, ax=ax2, orientation="horizontal", fraction=0.04, pad=0.08, extend="both")
     cb.set_label("CSP = sum of thickness^2 / smear distance over the shale beds passed, from "

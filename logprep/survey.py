@@ -29,6 +29,7 @@ from pathlib import Path
 import numpy as np
 import pandas as pd
 
+from logprep.csvtable import read_csv_table
 from logprep.errors import LogprepError
 from logprep.tops import well_key
 
@@ -46,10 +47,7 @@ class SurveyError(LogprepError, ValueError):
 def read_survey(path: str | Path) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
     """``(md_m, inc_deg, azi_deg)`` from a survey CSV (see the module notes)."""
     path = Path(path)
-    try:
-        df = pd.read_csv(path, skipinitialspace=True, comment="#")
-    except (OSError, ValueError, pd.errors.ParserError) as exc:
-        raise SurveyError(f"{path}: not a readable survey CSV ({exc})") from None
+    df = read_csv_table(path, SurveyError, "survey CSV", comment="#")
     cols = {str(c).strip().lower(): c for c in df.columns}
     md_col = next((c for c in _MD if c in cols), None)
     inc_col = next((c for c in _INC if c in cols), None)
@@ -114,12 +112,20 @@ def tvd_at_md(md_query_m, md_m, inc_deg, azi_deg) -> np.ndarray:
     return np.where(below, station[-1] + (q - md[-1]) * u[-1, 2], out)
 
 
+def check_survey_dir(survey_dir: str | Path) -> Path:
+    """``survey_dir`` as a Path; :class:`SurveyError` when it is not a folder."""
+    folder = Path(survey_dir)
+    if not folder.is_dir():
+        what = "is a file, not a folder" if folder.exists() else "not found"
+        raise SurveyError(f"{folder}: survey folder {what} (--survey-dir names a folder of "
+                          "<well>.csv surveys)")
+    return folder
+
+
 def find_survey(survey_dir: str | Path, *names: str) -> Path | None:
     """The survey CSV in ``survey_dir`` named after any of ``names`` (well name or file
     stem, matched like tops: case, spaces, ``-``, ``_`` ignored); None when there is none."""
-    folder = Path(survey_dir)
-    if not folder.is_dir():
-        raise SurveyError(f"{folder}: survey folder not found")
+    folder = check_survey_dir(survey_dir)
     keys = {well_key(n) for n in names if n}
     for p in sorted(folder.iterdir()):
         if p.suffix.lower() == ".csv" and well_key(p.stem) in keys:

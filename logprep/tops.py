@@ -18,6 +18,7 @@ from pathlib import Path
 
 import pandas as pd
 
+from logprep.csvtable import decode_text, read_csv_table
 from logprep.errors import LogprepError
 
 TOPS_COLUMNS = ["well", "top_m", "name"]
@@ -30,7 +31,7 @@ class TopsError(LogprepError, ValueError):
 def _markers_file(path: Path) -> pd.DataFrame:
     rows = []
     well = re.sub(r"_markers$", "", path.stem, flags=re.IGNORECASE)
-    for k, line in enumerate(path.read_text(errors="replace").splitlines(), start=1):
+    for k, line in enumerate(decode_text(path.read_bytes()).splitlines(), start=1):
         line = line.strip()
         if not line or line.startswith("#"):
             continue
@@ -57,10 +58,7 @@ def read_tops(path: str | Path) -> pd.DataFrame:
     if not path.is_file():
         raise TopsError(f"{path}: tops file not found")
     if path.suffix.lower() == ".csv":
-        try:
-            df = pd.read_csv(path, skipinitialspace=True)
-        except (ValueError, pd.errors.ParserError) as exc:
-            raise TopsError(f"{path}: not a readable CSV ({exc})") from None
+        df = read_csv_table(path, TopsError, "tops CSV")
         df.columns = [str(c).strip().lower() for c in df.columns]
         missing = [c for c in TOPS_COLUMNS if c not in df.columns]
         if missing:

@@ -47,6 +47,10 @@ SWEEP_COLUMNS = [
 follows."""
 
 
+MAX_SWEEP_VALUES = 200
+"""Most values one sweep axis may take."""
+
+
 def parse_values(text, name: str = "range") -> tuple[float, ...]:
     """Values from ``"a,b,c"``, ``"start:stop:step"`` (stop included when on the step), a
     number, or a list of numbers.
@@ -54,29 +58,35 @@ def parse_values(text, name: str = "range") -> tuple[float, ...]:
     >>> parse_values("0.2:0.3:0.05")
     (0.2, 0.25, 0.3)
     """
+    form = (f"{name}: {text!r} is not 'a,b,c' or 'start:stop:step' with stop >= start, "
+            "step > 0")
     if isinstance(text, (list, tuple)):
         vals = [float(x) for x in text]
     elif isinstance(text, (int, float)):
         vals = [float(text)]
-    else:
-        t = str(text).strip()
+    elif ":" in str(text):
         try:
-            if ":" in t:
-                start, stop, step = (float(x) for x in t.split(":"))
-                if not step > 0 or stop < start:
-                    raise ValueError
-                k = int(np.floor((stop - start) / step + 1e-9))
-                vals = [round(start + i * step, 10) for i in range(k + 1)]
-            else:
-                vals = [float(x) for x in t.split(",") if x.strip()]
+            start, stop, step = (float(x) for x in str(text).split(":"))
         except ValueError:
-            raise SettingsError(
-                f"{name}: {text!r} is not 'a,b,c' or 'start:stop:step' with stop >= start, "
-                f"step > 0") from None
+            raise SettingsError(form) from None
+        n = (stop - start) / step if step > 0 else float("nan")
+        if not (np.isfinite([start, stop, step, n]).all() and n >= 0):
+            raise SettingsError(form)
+        if n > MAX_SWEEP_VALUES:
+            raise SettingsError(f"{name}: {text!r} gives {int(n) + 1} values; use at most "
+                                f"{MAX_SWEEP_VALUES} (a larger step)")
+        vals = [round(start + i * step, 10) for i in range(int(np.floor(n + 1e-9)) + 1)]
+    else:
+        try:
+            vals = [float(x) for x in str(text).split(",") if x.strip()]
+        except ValueError:
+            raise SettingsError(form) from None
     if not vals:
         raise SettingsError(f"{name}: no values given")
-    if len(vals) > 200:
-        raise SettingsError(f"{name}: {len(vals)} values; use at most 200")
+    if not np.isfinite(vals).all():
+        raise SettingsError(f"{name}: {text!r} holds a value that is not a finite number")
+    if len(vals) > MAX_SWEEP_VALUES:
+        raise SettingsError(f"{name}: {len(vals)} values; use at most {MAX_SWEEP_VALUES}")
     return tuple(sorted(set(vals)))
 
 
@@ -196,6 +206,10 @@ def sweep_screening(
 
     combos = [(s.sand_cutoff, s.shale_cutoff, s.min_bed_m)]
     combos += [c for c in itertools.product(sands, shales, beds) if c[0] < c[1]]
+    if len(combos) == 1:
+        raise SettingsError(
+            f"sweep: no sand cut-off ({', '.join(f'{v:g}' for v in sands)}) is below a shale "
+            f"cut-off ({', '.join(f'{v:g}' for v in shales)}); nothing to sweep")
     rows = []
     for k, (sand, shale, bed) in enumerate(combos):
         if k == 0:
