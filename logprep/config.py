@@ -10,6 +10,7 @@ errors naming the file and the key.
 
 from __future__ import annotations
 
+import difflib
 import tomllib
 import types
 import typing
@@ -88,9 +89,10 @@ def parse_settings_dict(data: dict, source: str = "settings") -> tuple[dict, dic
                 tune[k] = v
             continue
         if key not in types_:
+            near = difflib.get_close_matches(key, list(types_) + ["tune"], n=1)
             raise ConfigError(
                 f"{source}: unknown key {key!r}; valid keys: {', '.join(types_)}, and a [tune] "
-                f"table with {', '.join(TUNE_KEYS)}")
+                f"table with {', '.join(TUNE_KEYS)}" + (f"; did you mean {near[0]!r}?" if near else ""))
         hint = types_[key]
         if not _accepts(hint, value):
             raise ConfigError(f"{source}: {key} = {value!r} is not a {_type_name(hint)}")

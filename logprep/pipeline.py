@@ -22,7 +22,7 @@ from logprep.juxtaposition import sand_windows
 from logprep.endpoints import (
     PICK_COLUMNS, ZONINGS, lines_per_sample, nd_shale_separation, pick_endpoints, zone_bounds,
 )
-from logprep.lasread import read_well, well_curve
+from logprep.lasread import DEPTH_UNITS_M, read_well, well_curve
 from logprep.model import Layers, WellLog
 from logprep.units import LENGTH_UNITS
 from logprep.qc import ND_ONLY, REPLACED, QcSettings, any_flag, density_correction_flags, gr_flags, inches
@@ -201,6 +201,8 @@ class ScreenSettings:
                     and not np.isfinite(value):
                 raise SettingsError(f"setting {f.name} must be a finite number (got {value})")
         get_transform(self.transform)
+        if self.depth_unit is not None and self.depth_unit.strip().upper() not in DEPTH_UNITS_M:
+            raise SettingsError(f"unknown depth unit {self.depth_unit!r}; use m or ft")
         get_combination(self.vsh_combine)
         if self.zoning not in ZONINGS:
             raise SettingsError(f"unknown zoning {self.zoning!r}; choose one of {', '.join(ZONINGS)}")

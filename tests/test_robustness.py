@@ -167,3 +167,23 @@ def test_tune_bad_ranges_are_usage_errors(tmp_path, capsys, sweep, message):
 def test_settings_reject_non_finite_from_python():
     with pytest.raises(SettingsError, match="throw_max_m must be a finite number"):
         ScreenSettings(throw_max_m=float("inf"))
+
+
+def test_config_unknown_key_suggests_the_near_one(tmp_path, capsys):
+    cfg = tmp_path / "s.toml"
+    cfg.write_text("sand_cut = 0.3\n")
+    las = layered(tmp_path / "w.las")
+    assert main(["screen", str(las), "--no-sheet", "--out", str(tmp_path / "o"),
+                 "--config", str(cfg)]) == 2
+    line = one_line_error(capsys)
+    assert "unknown key 'sand_cut'; valid keys:" in line
+    assert line.endswith("did you mean 'sand_cutoff'?")
+
+
+def test_config_depth_unit_checked_before_any_well(tmp_path, capsys):
+    cfg = tmp_path / "s.toml"
+    cfg.write_text('depth_unit = "furlong"\n')
+    las = layered(tmp_path / "w.las")
+    assert main(["screen", str(las), "--no-sheet", "--out", str(tmp_path / "o"),
+                 "--config", str(cfg)]) == 2
+    assert "unknown depth unit 'furlong'; use m or ft" in one_line_error(capsys)
