@@ -250,7 +250,8 @@ def cmd_screen(args) -> int:
         from logprep.pairs import screen_pairs
 
         rows = screen_pairs(paths, args.pairs, args.out, settings,
-                            on_error=lambda msg: print(f"error: {msg}", file=sys.stderr))
+                            on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
+                            sheets=not args.no_sheet)
         bad = sum(r["status"] != "ok" for r in rows)
         print(f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed; "
               f"summary {args.out}/pairs_summary.csv")

@@ -110,10 +110,11 @@ def screen_pairs(
     settings,
     *,
     on_error: Callable[[str], None] | None = None,
+    sheets: bool = True,
 ) -> list[dict]:
     """Screen every pair of ``pairs_file`` (wells found among the LAS files under
-    ``paths``) and write one folder per pair plus ``pairs_summary.csv`` in ``out_dir``.
-    Returns the summary rows."""
+    ``paths``) and write one folder per pair plus ``pairs_summary.csv`` in ``out_dir``
+    (``sheets=False``: no ``sheet.pdf``/``sheet.png``).  Returns the summary rows."""
     from logprep.batch import find_las_files
     from logprep.lasread import read_well
     from logprep.pipeline import screen_file
@@ -159,9 +160,10 @@ def screen_pairs(
                                   throw_step_m=settings.field_throw_step_m, depth_step_m=step,
                                   slip_source=settings.pair_slip_source)
             title = f"Two-well screening: {fw.well.name} (footwall) / {hw.well.name} (hanging wall)"
-            page = pair_sheet(fw, hw, shift, windows, grid, settings, title)
-            files_out = {"juxtapositions.csv": csv_bytes(windows), "sgr_field.npz": grid.npz_bytes(),
-                         "sheet.pdf": pdf_bytes([page]), "sheet.png": png_bytes(page)}
+            files_out = {"juxtapositions.csv": csv_bytes(windows), "sgr_field.npz": grid.npz_bytes()}
+            if sheets:
+                page = pair_sheet(fw, hw, shift, windows, grid, settings, title)
+                files_out.update({"sheet.pdf": pdf_bytes([page]), "sheet.png": png_bytes(page)})
             folder = folder_name(f"pair_{p.footwall}_{p.hangingwall}", taken)
             for fname, data in files_out.items():
                 write_bytes_atomic(out / folder / fname, data)

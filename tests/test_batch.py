@@ -49,6 +49,7 @@ def test_demo_run_uses_bundled_tops_survey_and_pair(tmp_path, monkeypatch):
     pairs = pd.read_csv(out / "pairs_summary.csv")
     assert pairs["status"].tolist() == ["ok"]
     assert (out / pairs["folder"].iloc[0] / "juxtapositions.csv").exists()
+    assert not list(out.rglob("sheet.*"))  # --no-sheet covers the pair folders too
 
 
 def test_unreadable_auxiliary_unit_leaves_curve_out_not_the_well():
