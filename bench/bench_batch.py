@@ -12,10 +12,10 @@ from __future__ import annotations
 
 import argparse
 import tempfile
-import time
 from pathlib import Path
 
 import lasio
+from timing import best_time_s
 
 from logprep.batch import find_las_files, screen_paths
 from logprep.examples import example_logs_dir
@@ -23,12 +23,7 @@ from logprep.pipeline import ScreenSettings, screen_file
 
 
 def best_of(repeat, fn):
-    times = []
-    for _ in range(repeat):
-        t = time.perf_counter()
-        fn()
-        times.append(time.perf_counter() - t)
-    return min(times)
+    return best_time_s(fn, repeat)
 
 
 def main() -> None:

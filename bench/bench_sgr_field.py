@@ -20,6 +20,8 @@ import time
 
 import numpy as np
 
+from timing import best_time_s
+
 from logprep.blocking import block_cutoff, sample_edges_m
 from logprep.juxtaposition import cumulative_clay
 from logprep.sgr import cumulative_clay_curve, sgr_field_pct, throw_axis_m
@@ -30,12 +32,7 @@ REPEATS = 5
 
 
 def best(fn, repeats=REPEATS):
-    times = []
-    for _ in range(repeats):
-        t0 = time.perf_counter()
-        fn()
-        times.append(time.perf_counter() - t0)
-    return min(times)
+    return best_time_s(fn, repeats)
 
 
 def blocky_column(random_state=20240601):
