@@ -54,10 +54,10 @@ def changepoint_bounds(
     gr = np.asarray(gr_api, dtype=float)
     if depth.size < 4 or not np.any(np.isfinite(gr)):
         return []
-    n = max(3, int(round(smooth_m / float(np.median(np.diff(depth))))))
+    step = float(np.median(np.diff(depth)))
+    n = max(3, int(round(smooth_m / step)))
     base = running_median(gr, n, min_periods=1)
     base = np.where(np.isfinite(base), base, np.nanmedian(base) if np.any(np.isfinite(base)) else 0.0)
-    step = float(np.median(np.diff(depth)))
     nmin = max(2, int(round(min_zone_m / step)))
     bounds = list(pelt_mean_breaks(base, min_step_api**2 * nmin / 2.0, nmin))
     while bounds:

@@ -457,7 +457,7 @@ def deviated_well(well: WellLog, settings: ScreenSettings, picks: pd.DataFrame):
     if path is None:
         return well, picks, "as logged", None
     md, inc, azi = read_survey(path)
-    tvd_well = well_to_tvd(well, path)
+    tvd_well = well_to_tvd(well, md, inc, azi, path)
     if len(picks):
         picks = picks.assign(top_m=tvd_at_md(picks["top_m"].to_numpy(float), md, inc, azi))
     return (tvd_well, picks, "TVD",

@@ -141,15 +141,15 @@ def true_stratigraphic_thickness_m(tvt_m, bed_dip_deg: float):
     return np.asarray(tvt_m, float) * np.cos(np.radians(bed_dip_deg))
 
 
-def well_to_tvd(well, survey_path: str | Path):
-    """A copy of a :class:`~logprep.model.WellLog` whose depth axis is TVD from the survey.
+def well_to_tvd(well, md_m, inc_deg, azi_deg, survey_path: str | Path):
+    """A copy of a :class:`~logprep.model.WellLog` whose depth axis is TVD from a survey
+    already read (:func:`read_survey`); ``survey_path`` names it in messages.
 
     Raises :class:`SurveyError` when TVD does not increase along the logged interval
     (a hole at or beyond horizontal)."""
     from dataclasses import replace
 
-    md, inc, azi = read_survey(survey_path)
-    tvd = tvd_at_md(well.depth_m, md, inc, azi)
+    tvd = tvd_at_md(well.depth_m, md_m, inc_deg, azi_deg)
     if np.any(np.diff(tvd) <= 0):
         bad = well.depth_m[1:][np.diff(tvd) <= 0][0]
         raise SurveyError(f"{survey_path}: TVD does not increase at MD {bad:.1f} m (horizontal or "
