@@ -161,6 +161,20 @@ def well_curve(well: WellLog, kind: str) -> tuple[np.ndarray, str] | None:
     return well.curves[name], well.units.get(name, "")
 
 
+def read_well_name(path: str | Path) -> str:
+    """The ``WELL`` header item of a LAS file, reading the header only (several times
+    quicker than :func:`read_well` on a large file); ``""`` when the file cannot be read
+    as LAS or has no WELL item."""
+    path = Path(path)
+    try:
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")
+            las = lasio.read(str(path), ignore_data=True, encoding=_bom_encoding(path))
+    except Exception:  # lasio raises many types for unreadable input; the caller only matches names
+        return ""
+    return str(las.well["WELL"].value).strip() if "WELL" in las.well else ""
+
+
 def read_well(
     path: str | Path,
     *,

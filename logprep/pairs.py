@@ -116,7 +116,7 @@ def screen_pairs(
     ``paths``) and write one folder per pair plus ``pairs_summary.csv`` in ``out_dir``
     (``sheets=False``: no ``sheet.pdf``/``sheet.png``).  Returns the summary rows."""
     from logprep.batch import find_las_files
-    from logprep.lasread import read_well
+    from logprep.lasread import read_well_name
     from logprep.pipeline import screen_file
     from logprep.tops import read_tops
 
@@ -134,12 +134,7 @@ def screen_pairs(
                "message": "", "sand_sand_windows": "", "min_window_sgr_pct": "", "folder": ""}
         try:
             if not names:
-                for f in files:
-                    try:
-                        names[f] = read_well(f, gr_curve=settings.gr_curve,
-                                             depth_unit=settings.depth_unit).name
-                    except LogprepError:
-                        names[f] = ""
+                names = {f: read_well_name(f) for f in files}
             results = []
             for name in (p.footwall, p.hangingwall):
                 f = _find(name, files, names)

@@ -134,3 +134,11 @@ def test_utf16_file_reads_with_named_curve():
     p = open_logs_path("las_standard_examples", "lasio_variants", "encodings_utf16lebom.las")
     w = read_well(p, gr_curve="NPHI")
     assert len(w.depth_m) >= 2
+
+
+def test_read_well_name_header_only(data_dir):
+    from logprep.lasread import read_well_name
+
+    assert read_well_name(data_dir / "layered_metres.las") == read_well(data_dir / "layered_metres.las").name
+    assert read_well_name(data_dir / "not_las.las") == ""
+    assert read_well_name(data_dir / "empty.las") == ""
