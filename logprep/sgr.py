@@ -36,13 +36,13 @@ References
 
 from __future__ import annotations
 
-import io
 from dataclasses import dataclass, field
 
 import numpy as np
 
 from logprep.blocking import sample_edges_m
 from logprep.errors import SettingsError
+from logprep.fault.fieldcodec import field_arrays, npz_bytes, read_field_arrays
 from logprep.juxtaposition import (
     JUXTAPOSITION_CLASSES, _PAIR_CODE, cumulative_clay, juxtaposition_grid, sgr_from_cumulative_pct,
 )
@@ -98,19 +98,21 @@ class SgrField:
     source: str = "layers"
     extra: dict = field(default_factory=dict)
 
-    def npz_bytes(self) -> bytes:
-        """The ``sgr_field.npz`` file: the arrays above plus the juxtaposition code table
-        (``juxtaposition_codes`` int8, ``juxtaposition_names`` str) and ``source``."""
-        codes = np.array(sorted(JUXTAPOSITION_CLASSES), dtype=np.int8)
-        names = np.array([JUXTAPOSITION_CLASSES[int(k)] for k in codes])
-        buf = io.BytesIO()
-        np.savez_compressed(
-            buf, depth_m=np.asarray(self.depth_m, float), throw_m=np.asarray(self.throw_m, float),
-            sgr_pct=self.sgr_pct, juxtaposition=self.juxtaposition,
-            juxtaposition_codes=codes, juxtaposition_names=names, source=np.array(self.source),
-            **{k: v for k, v in self.extra.items()},
-        )
-        return buf.getvalue()
+    def npz_bytes(self, smear: bool = False) -> bytes:
+        """The ``sgr_field.npz`` file in the lean format of :mod:`logprep.fault.fieldcodec`
+        (SGR in 0.1 % steps as int16, class codes int8); the smear fields of ``extra``
+        only with ``smear=True``."""
+        return npz_bytes(field_arrays(self.depth_m, self.throw_m, self.sgr_pct, self.juxtaposition,
+                                      JUXTAPOSITION_CLASSES, self.source, self.extra, smear))
+
+    @classmethod
+    def from_npz(cls, path_or_bytes) -> "SgrField":
+        """An :class:`SgrField` read back from an ``sgr_field.npz`` (path or bytes)."""
+        a = read_field_arrays(path_or_bytes)
+        known = {"depth_m", "throw_m", "sgr_pct", "juxtaposition", "juxtaposition_codes",
+                 "juxtaposition_names", "source"}
+        return cls(a["depth_m"], a["throw_m"], a["sgr_pct"], a["juxtaposition"], str(a["source"]),
+                   {k: v for k, v in a.items() if k not in known})
 
 
 def node_step_m(depth_m) -> float:

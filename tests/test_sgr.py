@@ -13,12 +13,13 @@ import pytest
 from hypothesis import given, settings, strategies as st
 
 from logprep.blocking import block_cutoff, sample_edges_m
+from logprep.fault.fieldcodec import read_field_arrays
 from logprep.juxtaposition import (
     JUXTAPOSITION_CLASSES, cumulative_clay, juxtaposition_grid, sgr_layered_pct,
 )
 from logprep.model import Layers
 from logprep.sgr import (
-    cumulative_clay_curve, juxtaposition_field, sgr_field, sgr_field_pct, throw_axis_m,
+    SgrField, cumulative_clay_curve, juxtaposition_field, sgr_field, sgr_field_pct, throw_axis_m,
 )
 
 
@@ -174,8 +175,11 @@ def test_npz_contents():
     vsh = np.interp(depth, [0, 10, 10, 14, 14, 30], [0.1, 0.1, 0.9, 0.9, 0.2, 0.2])
     f = sgr_field(L, depth, vsh, throw_max_m=20, throw_step_m=1.0, depth_step_m=1.0)
     z = np.load(io.BytesIO(f.npz_bytes()))
-    assert z["sgr_pct"].shape == (z["depth_m"].size, z["throw_m"].size) == z["juxtaposition"].shape
-    assert z["sgr_pct"].dtype == np.float32 and z["juxtaposition"].dtype == np.int8
+    assert z["sgr_pct_x10"].shape == (z["depth_m"].size, z["throw_m"].size) == z["juxtaposition"].shape
+    assert z["sgr_pct_x10"].dtype == np.int16 and z["juxtaposition"].dtype == np.int8
+    back = SgrField.from_npz(f.npz_bytes())
+    np.testing.assert_allclose(back.sgr_pct, f.sgr_pct, atol=0.05 + 1e-6)  # 0.1 % steps, rounded
+    assert np.array_equal(np.isnan(back.sgr_pct), np.isnan(f.sgr_pct))
     table = dict(zip(z["juxtaposition_codes"].tolist(), z["juxtaposition_names"].tolist()))
     assert table == JUXTAPOSITION_CLASSES
     assert z["depth_m"][0] == 0.0 and np.allclose(np.diff(z["depth_m"]), 1.0)
@@ -188,7 +192,7 @@ def test_cli_writes_sgr_field(tmp_path, example_dir):
     code = main(["screen", str(example_dir / "HRM-1.las"), "--out", str(out),
                  "--sgr-field-from", "curve", "--field-throw-step", "2", "--field-depth-step", "1"])
     assert code == 0
-    z = np.load(out / "HRM-1" / "sgr_field.npz")
+    z = read_field_arrays(out / "HRM-1" / "sgr_field.npz")
     assert str(z["source"]) == "curve"
     assert np.allclose(np.diff(z["throw_m"]), 2.0) and z["throw_m"][-1] == 300.0
     # rows every round(1 / 0.1524) = 7 samples

@@ -1,0 +1,1 @@
+"""Fault stage: juxtaposition, SGR field, smear indicators, seal capacity, fault rock."""

@@ -1,0 +1,1 @@
+"""Running screenings: settings, one well, batches, pairs, tuning."""

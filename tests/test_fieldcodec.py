@@ -1,0 +1,48 @@
+"""Lean storage of the SGR field: 0.1 % steps in int16, bytes that depend only on the field."""
+
+import io
+
+import numpy as np
+import pytest
+
+from logprep.fault.fieldcodec import (
+    SGR_NULL, decode_sgr_pct, encode_sgr_pct, field_arrays, npz_bytes, read_field_arrays,
+)
+
+
+def test_round_trip_within_half_a_step():
+    rng = np.random.default_rng(1)
+    s = rng.uniform(0, 100, (200, 50)).astype(np.float32)
+    s[rng.random(s.shape) < 0.1] = np.nan
+    q = encode_sgr_pct(s)
+    assert q.dtype == np.int16
+    back = decode_sgr_pct(q)
+    ok = np.isfinite(s)
+    assert np.array_equal(np.isnan(back), ~ok)
+    # rounding to the nearest 0.1 % step: at most half a step off (float32 slack)
+    assert np.max(np.abs(back[ok] - s[ok])) <= 0.05 + 1e-4
+
+
+def test_edges_and_null():
+    q = encode_sgr_pct([0.0, 100.0, 0.04, 0.05000001, 99.96, np.nan, -1e-9, 100.0000001])
+    assert q.tolist() == [0, 1000, 0, 1, 1000, SGR_NULL, 0, 1000]
+
+
+def test_same_field_same_bytes_and_plain_numpy_reads_it():
+    arrays = field_arrays(np.arange(3.0), np.arange(2.0), np.full((3, 2), 12.34),
+                          np.zeros((3, 2), np.int8), {0: "outside", 1: "sand-sand"}, "layers")
+    a, b = npz_bytes(arrays), npz_bytes(arrays)
+    assert a == b
+    z = np.load(io.BytesIO(a))
+    assert z["sgr_pct_x10"].tolist() == [[123, 123]] * 3
+    assert float(z["sgr_pct_scale"]) == pytest.approx(0.1)
+    assert read_field_arrays(a)["sgr_pct"][0, 0] == pytest.approx(12.3)
+
+
+def test_smear_fields_only_on_request():
+    extra = {"ssf": np.ones((3, 2)), "csp_m": np.ones((3, 2))}
+    args = (np.arange(3.0), np.arange(2.0), np.zeros((3, 2)), np.zeros((3, 2), np.int8),
+            {0: "outside"}, "layers", extra)
+    assert "ssf" not in field_arrays(*args)
+    with_smear = field_arrays(*args, smear=True)
+    assert with_smear["ssf"].dtype == np.float32 and "csp_m" in with_smear
