@@ -1,17 +1,45 @@
-"""Batch screening over files and folders: one well's failure never stops the others."""
+"""Batch screening over files and folders: one well's failure never stops the others.
+
+A batch can be killed at any moment and run again on the same ``--out``: wells whose input
+and settings are unchanged are skipped (see :mod:`logprep.run.manifest`), the others are
+redone, and every well folder is either complete or carries ``INCOMPLETE.txt``
+(:mod:`logprep.run.store`).  Wells run in this process, in worker processes or on a Dask
+cluster (:mod:`logprep.run.executor`); this process writes every file.
+"""
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+import time
+from collections.abc import Callable, Iterable
+from dataclasses import dataclass, field
 from pathlib import Path
-from typing import Callable, Iterable
 
+from logprep import __version__
 from logprep.config import SETTINGS_FILE_NAME, write_settings
 from logprep.errors import LogprepError
-from logprep.outputs import folder_name, prepare_out_dir, render_well, write_summary, write_well
-from logprep.pipeline import ScreenSettings, screen_file
+from logprep.outputs import folder_name, prepare_out_dir, write_summary
+from logprep.pipeline import ScreenSettings
+from logprep.run.executor import Backend, TaskLost, run_tasks
+from logprep.run.manifest import (
+    Manifest,
+    file_sha256,
+    readable_path,
+    settings_sha256,
+    tree_sha256,
+)
+from logprep.run.progress import Progress
+from logprep.run.store import clean_leftovers, commit_folder, mark_folder
+from logprep.run.welltask import (
+    OutputOptions,
+    WellOutcome,
+    screen_well_task,
+    summary_row,
+)
 from logprep.survey import check_survey_dir
 from logprep.tops import read_tops
+
+SUMMARY_EVERY_S = 2.0
+"""``summary.csv`` is rewritten at most this often during a run (and always at its end)."""
 
 
 def find_las_files(paths: Iterable[str | Path]) -> list[Path]:
@@ -37,8 +65,14 @@ def find_las_files(paths: Iterable[str | Path]) -> list[Path]:
 
 @dataclass
 class BatchReport:
+    """``rows``: the ``summary.csv`` rows in input order; ``skipped``: wells unchanged since
+    the last run on this ``--out``; ``outcomes``: folder -> :class:`WellOutcome` (timings,
+    peak memory) of the wells screened in this run."""
+
     summary_path: Path
     rows: list[dict]
+    skipped: int = 0
+    outcomes: dict[str, WellOutcome] = field(default_factory=dict)
 
     @property
     def failures(self) -> list[dict]:
@@ -47,91 +81,147 @@ class BatchReport:
 
 def screen_one(path: Path, folder: str, out_dir: Path, settings: ScreenSettings, tops=None,
                sheets: bool = True) -> dict:
-    """Screen one file and write its folder; return its ``summary.csv`` row.
+    """Screen one file and put its folder in place; return its ``summary.csv`` row.
 
     A :class:`LogprepError` becomes a row with ``status`` ``error`` and a one-line
-    message naming the file; nothing is written for that file.  ``sheets=False`` writes
-    the tables only.  Top-level so that worker processes can run it.
+    message naming the file; nothing is written for that file.
     """
-    from logprep.sheet import build_sheet  # drawing is imported only when needed
+    outcome = screen_well_task(settings, tops, OutputOptions(sheets=sheets), str(path),
+                               readable_path(path), folder)
+    if outcome.files is not None:
+        commit_folder(Path(out_dir), folder, outcome.files)
+    return outcome.row
 
-    row = {"well": folder, "source": str(path), "status": "ok", "message": "",
-           "layers": "", "sand_sand_windows": "", "min_window_sgr_pct": "", "folder": ""}
-    try:
-        result = screen_file(path, settings, tops=tops)
-        files_out = render_well(result, build_sheet if sheets else None)
-        write_well(files_out, Path(out_dir) / folder)
-    except LogprepError as exc:
-        msg = str(exc).splitlines()[0] if str(exc) else type(exc).__name__
-        if str(path) not in msg:
-            msg = f"{path}: {msg}"
-        row.update(status="error", message=msg)
-        return row
-    cross = result.windows[~result.windows["self_juxtaposed"]]
-    row.update(
-        well=result.well.name, layers=len(result.layers), sand_sand_windows=len(cross),
-        min_window_sgr_pct=round(result.min_window_sgr_pct, 3), folder=folder,
-    )
+
+def run_settings_sha256(settings: ScreenSettings, options: OutputOptions) -> str:
+    """The hash that decides whether a well's results are still those of this run: the
+    settings, the output options, the logprep version and the bytes of the tops and
+    survey files."""
+    return settings_sha256(settings.to_dict(), {
+        "logprep": __version__, "outputs": options.to_dict(),
+        "tops": tree_sha256(settings.tops_file), "surveys": tree_sha256(settings.survey_dir)})
+
+
+def pending_row(folder: str, given: str) -> dict:
+    row = summary_row(folder, given)
+    row.update(status="pending", message="not screened yet (the run was stopped before this well)")
     return row
 
 
 def screen_paths(
     paths: Iterable[str | Path],
     out_dir: str | Path,
-    settings: ScreenSettings = ScreenSettings(),
+    settings: ScreenSettings | None = None,
     *,
     on_error: Callable[[str], None] | None = None,
-    progress: Callable[[Iterable], Iterable] | None = None,
+    progress: Progress | None = None,
     jobs: int = 1,
     sheets: bool = True,
+    field: bool = True,
+    field_smear: bool = False,
+    force: bool = False,
+    backend: Backend | None = None,
 ) -> BatchReport:
     """Screen every LAS file under ``paths`` and write results below ``out_dir``.
 
     Each file gets its own folder (see :func:`logprep.outputs.folder_name`) holding
-    ``layers.csv``, ``juxtapositions.csv``, ``sheet.pdf`` and ``sheet.png`` and the other
-    per-well files; ``out_dir/summary.csv`` lists every file with ``status`` ``ok`` or
-    ``error`` (rewritten whole after each well, in input order), and
-    ``out_dir/logprep-settings.toml`` holds the settings used (see :mod:`logprep.config`).
+    ``layers.csv``, ``juxtapositions.csv``, ``sgr_field.npz``, ``sheet.pdf``, ``sheet.png``
+    and the other per-well files; ``out_dir/summary.csv`` lists every file in input order
+    with ``status`` ``ok``, ``error`` or (while the run goes on, or after it was killed)
+    ``pending``; ``out_dir/logprep-settings.toml`` holds the settings used (see
+    :mod:`logprep.config`) and ``out_dir/logprep-manifest.jsonl`` what each folder was made
+    from.  Wells unchanged since the last run on ``out_dir`` are skipped unless ``force``.
+
     A :class:`LogprepError` for one file is recorded (and passed to ``on_error``) and the
     batch goes on; any other exception is a bug and propagates.  ``jobs`` > 1 screens wells
-    in that many worker processes (results are the same as with one); ``sheets=False``
-    skips the PDF/PNG sheets (tables and fields only) for fast large batches.
+    in that many worker processes, ``backend`` on a Dask cluster (results are the same);
+    ``sheets=False`` skips the PDF/PNG sheets, ``field=False`` the SGR field file and
+    ``field_smear`` adds the smear fields to it.
     """
+    settings = settings if settings is not None else ScreenSettings()
+    backend = backend if backend is not None else Backend(jobs=jobs)
     out = Path(out_dir)
     files = find_las_files(paths)
     if not files:
         raise LogprepError(f"no .las files found in {', '.join(map(str, paths))}")
-    if jobs < 1:
-        raise LogprepError(f"--jobs must be 1 or more (got {jobs})")
     # inputs shared by every well are checked once, before any well is screened
     prepare_out_dir(out)
+    clean_leftovers(out)
     tops = read_tops(settings.tops_file) if settings.tops_file else None
     if settings.survey_dir:
         check_survey_dir(settings.survey_dir)
-    write_settings(out / SETTINGS_FILE_NAME, settings)
+    options = OutputOptions(sheets=sheets, field=field, field_smear=field_smear)
+    run_sha = run_settings_sha256(settings, options)
     taken: set[str] = set()
     folders = [folder_name(f, taken) for f in files]
-    rows: list[dict | None] = [None] * len(files)
-    summary = out / "summary.csv"
+    given = [str(f) for f in files]
+    inputs = [_input_sha256(f) for f in files]
+    progress = progress if progress is not None else Progress("silent")
 
-    def record(i: int, row: dict) -> None:
-        nonlocal summary
-        rows[i] = row
-        if row["status"] != "ok" and on_error:
-            on_error(row["message"])
-        summary = write_summary([r for r in rows if r is not None], out)
+    with Manifest(out) as manifest:
+        rows: list[dict] = []
+        todo: list[int] = []
+        for i, folder in enumerate(folders):
+            if not force and manifest.is_current(folder, inputs[i], run_sha):
+                rows.append({**manifest.entries[folder]["row"], "source": given[i]})
+                continue
+            rows.append(pending_row(folder, given[i]))
+            todo.append(i)
+            if (out / folder).exists():
+                mark_folder(out / folder, "being redone for other settings or input "
+                            "(logprep-settings.toml describes the latest run)")
+                manifest.drop(folder)
+        for folder in sorted(set(manifest.entries) - set(folders)):
+            mark_folder(out / folder, "not part of the latest run on this folder (see "
+                        "summary.csv and logprep-settings.toml)")
+            manifest.drop(folder)
+        write_settings(out / SETTINGS_FILE_NAME, settings)
+        summary = write_summary(rows, out)
+        report = BatchReport(summary, rows, skipped=len(files) - len(todo))
+        progress.start(len(files), report.skipped)
+        # workers read by absolute path (their working folder may differ) but name the
+        # file as given; the survey folder likewise
+        worker_settings = settings.updated(survey_dir=readable_path(settings.survey_dir)) \
+            if settings.survey_dir else settings
+        tasks = [(given[i], readable_path(files[i]), folders[i]) for i in todo]
+        last = time.monotonic()
+        try:
+            for k, outcome in run_tasks(screen_well_task, tasks, backend,
+                                        shared=(worker_settings, tops, options)):
+                i = todo[k]
+                if isinstance(outcome, TaskLost):
+                    row = {**pending_row(folders[i], given[i]), "status": "error",
+                           "message": f"{given[i]}: {outcome.message}"}
+                else:
+                    row = outcome.row
+                    report.outcomes[folders[i]] = outcome
+                    if outcome.files is not None:
+                        sums = commit_folder(out, folders[i], outcome.files)
+                        manifest.record(folders[i], source=given[i], input_sha=inputs[i],
+                                        settings_sha=run_sha, outputs=sums, row=row,
+                                        sizes={n: len(b) for n, b in outcome.files.items()})
+                rows[i] = row
+                if row["status"] != "ok" and on_error:
+                    on_error(row["message"])
+                progress.finished(folders[i], row["status"], _detail(row), row["message"])
+                if time.monotonic() - last >= SUMMARY_EVERY_S:
+                    write_summary(rows, out)
+                    last = time.monotonic()
+        finally:
+            progress.close()
+            write_summary(rows, out)
+            manifest.compact()
+    return report
 
-    if jobs == 1 or len(files) == 1:
-        iterator = progress(range(len(files))) if progress else range(len(files))
-        for i in iterator:
-            record(i, screen_one(files[i], folders[i], out, settings, tops, sheets))
-    else:
-        from concurrent.futures import ProcessPoolExecutor, as_completed
 
-        with ProcessPoolExecutor(max_workers=min(jobs, len(files))) as pool:
-            futures = {pool.submit(screen_one, f, name, out, settings, tops, sheets): i
-                       for i, (f, name) in enumerate(zip(files, folders))}
-            done = as_completed(futures)
-            for fut in (progress(done) if progress else done):
-                record(futures[fut], fut.result())
-    return BatchReport(summary_path=summary, rows=[r for r in rows if r is not None])
+def _input_sha256(path: Path) -> str:
+    try:
+        return file_sha256(path)
+    except OSError:
+        return ""  # unreadable: the well task reports it
+
+
+def _detail(row: dict) -> str:
+    if row["status"] != "ok":
+        return ""
+    return f"{row['layers']} layers, {row['sand_sand_windows']} windows"

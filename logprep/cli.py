@@ -200,15 +200,10 @@ def _add_config_option(p: argparse.ArgumentParser) -> None:
                         "it used to logprep-settings.toml in its output folder")
 
 
-def _progress(stream):
-    """A progress bar on stderr only when it is a terminal (tqdm if installed)."""
-    if not stream.isatty():
-        return None
-    try:
-        from tqdm import tqdm
-    except ImportError:
-        return None
-    return lambda files: tqdm(files, unit="well", file=stream)
+def _backend(args):
+    from logprep.run.executor import Backend
+
+    return Backend(jobs=args.jobs, scheduler=args.scheduler, dask_local=args.dask_local)
 
 
 def cmd_screen(args) -> int:
@@ -235,15 +230,19 @@ def cmd_screen(args) -> int:
         from logprep.pairs import read_pairs
 
         read_pairs(args.pairs)  # a bad pairs file is a usage error, found before the wells run
+    from logprep.run.progress import Progress
+
+    backend = _backend(args)
     report = screen_paths(
         paths, args.out, settings,
-        on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
-        progress=_progress(sys.stderr),
-        jobs=args.jobs,
-        sheets=not args.no_sheet,
+        progress=Progress("quiet" if args.quiet else "auto", sys.stderr),
+        backend=backend, sheets=not args.no_sheet, field=not args.no_field,
+        field_smear=args.field_smear, force=args.force,
     )
     ok = len(report.rows) - len(report.failures)
-    print(f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed; "
+    skipped = (f" ({report.skipped} unchanged since the last run, skipped; --force redoes them)"
+               if report.skipped else "")
+    print(f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed{skipped}; "
           f"results in {args.out}, summary {report.summary_path}")
     failed = bool(report.failures)
     if args.pairs:
@@ -251,7 +250,8 @@ def cmd_screen(args) -> int:
 
         rows = screen_pairs(paths, args.pairs, args.out, settings,
                             on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
-                            sheets=not args.no_sheet)
+                            sheets=not args.no_sheet, field=not args.no_field,
+                            field_smear=args.field_smear, backend=backend)
         bad = sum(r["status"] != "ok" for r in rows)
         print(f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed; "
               f"summary {args.out}/pairs_summary.csv")
@@ -285,6 +285,29 @@ def cmd_tune(args) -> int:
     return EXIT_OK
 
 
+def _add_batch_options(p: argparse.ArgumentParser) -> None:
+    g = p.add_argument_group("batch: where wells run, what is written, reruns")
+    g.add_argument("--jobs", type=int, default=1, metavar="N",
+                   help="screen wells in N worker processes on this machine (default: 1)")
+    g.add_argument("--scheduler", metavar="ADDRESS",
+                   help="send one task per well and per pair to the Dask cluster whose "
+                        "scheduler listens at ADDRESS (e.g. tcp://10.0.0.5:8786); inputs must "
+                        "be on a path every worker sees; this process writes the outputs "
+                        "(needs pip install 'logprep[dask]')")
+    g.add_argument("--dask-local", type=int, metavar="N",
+                   help="start a Dask cluster of N worker processes on this machine for the run")
+    g.add_argument("--no-sheet", action="store_true",
+                   help="write tables and fields only, no PDF/PNG sheets (fast, for large batches)")
+    g.add_argument("--no-field", action="store_true",
+                   help="do not write sgr_field.npz (the triangle diagram on the sheet is still drawn)")
+    g.add_argument("--field-smear", action="store_true",
+                   help="also store the smear fields (SSF, CSP) in sgr_field.npz (about doubles it)")
+    g.add_argument("--force", action="store_true",
+                   help="redo every well, also those unchanged since the last run on --out")
+    g.add_argument("--quiet", action="store_true",
+                   help="no progress on stderr (errors and the final line are still printed)")
+
+
 def build_parser() -> argparse.ArgumentParser:
     parser = argparse.ArgumentParser(
         prog="logprep",
@@ -307,10 +330,7 @@ def build_parser() -> argparse.ArgumentParser:
     p.add_argument("--out", default="screening", metavar="DIR",
                    help="output folder (default: ./%(default)s)")
     _add_config_option(p)
-    p.add_argument("--jobs", type=int, default=1, metavar="N",
-                   help="screen wells in N worker processes (default: 1)")
-    p.add_argument("--no-sheet", action="store_true",
-                   help="write tables and fields only, no PDF/PNG sheets (fast, for large batches)")
+    _add_batch_options(p)
     p.add_argument("--pairs", metavar="FILE",
                    help="also screen well pairs across a fault: CSV of footwall, hangingwall and "
                         "marker (a top in both wells, needs --tops) or shift_m; one folder per pair")

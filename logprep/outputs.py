@@ -34,12 +34,19 @@ def write_bytes_atomic(path: Path, data: bytes) -> None:
         try:
             with os.fdopen(fd, "wb") as f:
                 f.write(data)
+            os.chmod(tmp, 0o666 & ~_umask())  # mkstemp makes 0600; results are for sharing
             os.replace(tmp, path)
         except BaseException:
             Path(tmp).unlink(missing_ok=True)
             raise
     except OSError as exc:
         raise OutputError(f"{path}: cannot write ({exc.strerror or exc})") from exc
+
+
+def _umask() -> int:
+    mask = os.umask(0)
+    os.umask(mask)
+    return mask
 
 
 def prepare_out_dir(out_dir: str | Path) -> Path:
@@ -71,10 +78,19 @@ def _missing_glyphs_quiet():
         yield
 
 
+def pdf_metadata() -> dict:
+    """PDF document information without the time of the run, so that the same inputs give
+    the same bytes; with ``SOURCE_DATE_EPOCH`` set (reproducible builds) matplotlib dates
+    the file from it."""
+    meta = {"Creator": "logprep", "Title": "fault-seal screening sheet"}
+    if not os.environ.get("SOURCE_DATE_EPOCH"):
+        meta["CreationDate"] = None
+    return meta
+
+
 def pdf_bytes(figures) -> bytes:
     buf = io.BytesIO()
-    with _missing_glyphs_quiet(), \
-            PdfPages(buf, metadata={"Creator": "logprep", "Title": "fault-seal screening sheet"}) as pdf:
+    with _missing_glyphs_quiet(), PdfPages(buf, metadata=pdf_metadata()) as pdf:
         for fig in figures:
             FigureCanvasAgg(fig)
             pdf.savefig(fig)
@@ -82,16 +98,27 @@ def pdf_bytes(figures) -> bytes:
 
 
 def png_bytes(figure, dpi: int = 110) -> bytes:
+    """The figure as a PNG preview in 256 colours (a palette image, about a third of the
+    true-colour size; the PDF is the full-quality sheet).  Deterministic: the same figure
+    gives the same bytes."""
+    from PIL import Image
+
     buf = io.BytesIO()
     FigureCanvasAgg(figure)
     with _missing_glyphs_quiet():
         figure.savefig(buf, format="png", dpi=dpi)
-    return buf.getvalue()
+    buf.seek(0)
+    with Image.open(buf) as im:
+        small = im.convert("RGB").quantize(256)
+    out = io.BytesIO()
+    small.save(out, format="png", optimize=True)
+    return out.getvalue()
 
 
 _UNSAFE = re.compile(r"[^A-Za-z0-9._-]+")
 
-RESERVED_NAMES = ("summary.csv", "pairs_summary.csv", "logprep-settings.toml")
+RESERVED_NAMES = ("summary.csv", "pairs_summary.csv", "logprep-settings.toml",
+                  "logprep-manifest.jsonl")
 """Files a run writes at the top of its output folder: no well folder may take their name."""
 
 
@@ -124,13 +151,15 @@ def well_tables(result) -> dict[str, pd.DataFrame]:
     }
 
 
-def render_well(result, sheet_builder=None) -> dict[str, bytes]:
+def render_well(result, sheet_builder=None, *, field: bool = True,
+                field_smear: bool = False) -> dict[str, bytes]:
     """Every output file of one well as bytes, rendered in memory first so that a failure
     while drawing leaves nothing half-written.  With no ``sheet_builder`` the sheet
-    (``sheet.pdf``, ``sheet.png``) is left out: tables only, much faster."""
+    (``sheet.pdf``, ``sheet.png``) is left out: tables only, much faster.  ``field=False``
+    leaves out ``sgr_field.npz``; ``field_smear`` adds the smear fields to it."""
     files = {name: csv_bytes(frame) for name, frame in well_tables(result).items()}
-    if getattr(result, "grid", None) is not None:
-        files["sgr_field.npz"] = result.grid.npz_bytes()
+    if field and getattr(result, "grid", None) is not None:
+        files["sgr_field.npz"] = result.grid.npz_bytes(smear=field_smear)
     if sheet_builder is not None:
         pages = sheet_builder(result)
         files["sheet.pdf"] = pdf_bytes(pages)

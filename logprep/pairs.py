@@ -18,7 +18,13 @@ import pandas as pd
 
 from logprep.csvtable import parse_number, read_csv_table
 from logprep.errors import LogprepError
-from logprep.outputs import csv_bytes, folder_name, pdf_bytes, png_bytes, write_bytes_atomic
+from logprep.outputs import (
+    csv_bytes,
+    folder_name,
+    pdf_bytes,
+    png_bytes,
+    write_bytes_atomic,
+)
 from logprep.tops import well_key
 from logprep.twowell import PairError, marker_shift_m, two_well_field, two_well_windows
 
@@ -67,7 +73,12 @@ def pair_sheet(fw, hw, shift_m: float, windows: pd.DataFrame, grid, settings, ti
     from matplotlib.patches import Patch
 
     from logprep.caution import CAUTION
-    from logprep.sheet import (LITHOLOGY_COLOURS, PAGE_SIZE_IN, draw_field, draw_sgr_colourbar)
+    from logprep.sheet import (
+        LITHOLOGY_COLOURS,
+        PAGE_SIZE_IN,
+        draw_field,
+        draw_sgr_colourbar,
+    )
 
     fig = Figure(figsize=PAGE_SIZE_IN)
     fig.suptitle(title, x=0.015, ha="left", fontsize=14, fontweight="bold")
@@ -103,6 +114,54 @@ def pair_sheet(fw, hw, shift_m: float, windows: pd.DataFrame, grid, settings, ti
     return fig
 
 
+def pair_task(settings, tops, options, pair: dict, fw_file: tuple[str, str],
+              hw_file: tuple[str, str]) -> tuple[dict, dict[str, bytes] | None]:
+    """One well pair as a batch task (see :mod:`logprep.run.executor`): screen both wells
+    (``(given, readable)`` paths), tie them and return the pair's summary fields and its
+    files as bytes (None on a :class:`LogprepError`, with ``status`` ``error``)."""
+    from dataclasses import replace
+
+    from logprep.lasread import read_well
+    from logprep.pipeline import screen_well
+
+    row = {"shift_m": "", "status": "ok", "message": "", "sand_sand_windows": "",
+           "min_window_sgr_pct": ""}
+    try:
+        fw, hw = (screen_well(replace(read_well(readable, gr_curve=settings.gr_curve,
+                                                depth_unit=settings.depth_unit), source=given),
+                              settings, tops=tops)
+                  for given, readable in (fw_file, hw_file))
+        if pair["marker"]:
+            if tops is None:
+                raise PairError(f"marker {pair['marker']!r} needs a tops file (--tops)")
+            shift = marker_shift_m(fw.tops, hw.tops, pair["marker"], pair["footwall"],
+                                   pair["hangingwall"])
+        else:
+            shift = parse_number(pair["shift_m"])
+        windows = two_well_windows(fw.layers, hw.layers, shift, settings.throw_max_m,
+                                   settings.pair_slip_source)
+        step = settings.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
+        grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=settings.throw_max_m,
+                              throw_step_m=settings.field_throw_step_m, depth_step_m=step,
+                              slip_source=settings.pair_slip_source)
+        title = f"Two-well screening: {fw.well.name} (footwall) / {hw.well.name} (hanging wall)"
+        files = {"juxtapositions.csv": csv_bytes(windows)}
+        if options.field:
+            files["sgr_field.npz"] = grid.npz_bytes(smear=options.field_smear)
+        if options.sheets:
+            page = pair_sheet(fw, hw, shift, windows, grid, settings, title)
+            files.update({"sheet.pdf": pdf_bytes([page]), "sheet.png": png_bytes(page)})
+    except LogprepError as exc:
+        msg = str(exc).splitlines()[0]
+        for given, readable in (fw_file, hw_file):
+            msg = msg.replace(readable, given)
+        row.update(status="error", message=msg)
+        return row, None
+    row.update(shift_m=round(shift, 4), sand_sand_windows=len(windows),
+               min_window_sgr_pct=round(float(windows["sgr_min_pct"].min()), 3) if len(windows) else "")
+    return row, files
+
+
 def screen_pairs(
     paths: Iterable[str | Path],
     pairs_file: str | Path,
@@ -111,67 +170,70 @@ def screen_pairs(
     *,
     on_error: Callable[[str], None] | None = None,
     sheets: bool = True,
+    field: bool = True,
+    field_smear: bool = False,
+    backend=None,
 ) -> list[dict]:
     """Screen every pair of ``pairs_file`` (wells found among the LAS files under
     ``paths``) and write one folder per pair plus ``pairs_summary.csv`` in ``out_dir``
-    (``sheets=False``: no ``sheet.pdf``/``sheet.png``).  Returns the summary rows."""
+    (``sheets=False``: no ``sheet.pdf``/``sheet.png``; ``field``/``field_smear`` as for
+    wells).  One task per pair on ``backend`` (a :class:`logprep.run.executor.Backend`).
+    Returns the summary rows."""
     from logprep.batch import find_las_files
     from logprep.lasread import read_well_name
-    from logprep.pipeline import screen_file
+    from logprep.run.executor import Backend, TaskLost, run_tasks
+    from logprep.run.manifest import readable_path
+    from logprep.run.store import commit_folder
+    from logprep.run.welltask import OutputOptions
     from logprep.tops import read_tops
 
     out = Path(out_dir)
     pairs = read_pairs(pairs_file)
     files = find_las_files(paths)
     tops = read_tops(settings.tops_file) if settings.tops_file else None
-    names: dict[Path, str] = {}
-    cache: dict[Path, object] = {}
+    names = {f: read_well_name(f) for f in files} if len(pairs) else {}
     taken: set[str] = set()
-    rows = []
+    rows, tasks, where = [], [], []
     for p in pairs.itertuples():
         row = {"footwall": p.footwall, "hangingwall": p.hangingwall, "marker": p.marker,
                "shift_m": "", "slip_source": settings.pair_slip_source, "status": "ok",
                "message": "", "sand_sand_windows": "", "min_window_sgr_pct": "", "folder": ""}
-        try:
-            if not names:
-                names = {f: read_well_name(f) for f in files}
-            results = []
-            for name in (p.footwall, p.hangingwall):
-                f = _find(name, files, names)
-                if f not in cache:
-                    cache[f] = screen_file(f, settings, tops=tops)
-                results.append(cache[f])
-            fw, hw = results
-            if p.marker:
-                if tops is None:
-                    raise PairError(f"marker {p.marker!r} needs a tops file (--tops)")
-                shift = marker_shift_m(fw.tops, hw.tops, p.marker, p.footwall, p.hangingwall)
-            else:
-                shift = parse_number(p.shift_m)
-            windows = two_well_windows(fw.layers, hw.layers, shift, settings.throw_max_m,
-                                       settings.pair_slip_source)
-            step = settings.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
-            grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=settings.throw_max_m,
-                                  throw_step_m=settings.field_throw_step_m, depth_step_m=step,
-                                  slip_source=settings.pair_slip_source)
-            title = f"Two-well screening: {fw.well.name} (footwall) / {hw.well.name} (hanging wall)"
-            files_out = {"juxtapositions.csv": csv_bytes(windows), "sgr_field.npz": grid.npz_bytes()}
-            if sheets:
-                page = pair_sheet(fw, hw, shift, windows, grid, settings, title)
-                files_out.update({"sheet.pdf": pdf_bytes([page]), "sheet.png": png_bytes(page)})
-            folder = folder_name(f"pair_{p.footwall}_{p.hangingwall}", taken)
-            for fname, data in files_out.items():
-                write_bytes_atomic(out / folder / fname, data)
-        except LogprepError as exc:
-            msg = f"{pairs_file}: pair {p.footwall} / {p.hangingwall}: {str(exc).splitlines()[0]}"
-            row.update(status="error", message=msg)
-            if on_error:
-                on_error(msg)
-        else:
-            row.update(shift_m=round(shift, 4), sand_sand_windows=len(windows), folder=folder,
-                       min_window_sgr_pct=round(float(windows["sgr_min_pct"].min()), 3)
-                       if len(windows) else "")
         rows.append(row)
+        try:
+            fw_f, hw_f = (_find(name, files, names) for name in (p.footwall, p.hangingwall))
+        except LogprepError as exc:
+            row.update(status="error", message=_pair_message(pairs_file, p, str(exc)))
+            continue
+        folder = folder_name(f"pair_{p.footwall}_{p.hangingwall}", taken)
+        pair = {"footwall": p.footwall, "hangingwall": p.hangingwall, "marker": p.marker,
+                "shift_m": p.shift_m}
+        tasks.append((pair, (str(fw_f), readable_path(fw_f)), (str(hw_f), readable_path(hw_f))))
+        where.append((len(rows) - 1, folder))
+    options = OutputOptions(sheets=sheets, field=field, field_smear=field_smear)
+    worker_settings = settings.updated(survey_dir=readable_path(settings.survey_dir)) \
+        if settings.survey_dir else settings
+    try:
+        for k, outcome in run_tasks(pair_task, tasks, backend or Backend(),
+                                    shared=(worker_settings, tops, options)):
+            (at, folder), p = where[k], pairs.iloc[where[k][0]]
+            row = rows[at]
+            if isinstance(outcome, TaskLost):
+                outcome = ({"status": "error", "message": outcome.message}, None)
+            fields_, files_out = outcome
+            row.update(fields_)
+            if files_out is not None:
+                commit_folder(out, folder, files_out)
+                row["folder"] = folder
+            else:
+                row["message"] = _pair_message(pairs_file, p, row["message"])
+    finally:
+        for row in rows:
+            if row["status"] != "ok" and on_error:
+                on_error(row["message"])
         write_bytes_atomic(out / "pairs_summary.csv",
                            csv_bytes(pd.DataFrame(rows, columns=PAIRS_SUMMARY_COLUMNS)))
     return rows
+
+
+def _pair_message(pairs_file, p, msg: str) -> str:
+    return f"{pairs_file}: pair {p.footwall} / {p.hangingwall}: {msg.splitlines()[0] if msg else ''}"

@@ -68,7 +68,7 @@ def test_bad_inputs_one_line_errors_and_exit_1(tmp_path, data_dir, example_dir, 
         shutil.copy(data_dir / name, src / name)
     shutil.copy(example_dir / "HRM-1.las", src / "HRM-1.las")
     out = tmp_path / "out"
-    code = main(["screen", str(src), "--out", str(out)])
+    code = main(["screen", str(src), "--out", str(out), "--quiet"])
     err = capsys.readouterr().err
     assert code == 1
     lines = [ln for ln in err.splitlines() if ln.strip()]

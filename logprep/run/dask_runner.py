@@ -1,0 +1,86 @@
+"""Running batch tasks on a Dask distributed cluster (the optional ``logprep[dask]`` extra).
+
+One task per well (per pair, per fault); tasks share nothing but the settings and the tops
+table, sent to every worker once (:meth:`distributed.Client.scatter`).  Workers read the
+input files at their absolute paths (so a cluster needs the inputs on a path every worker
+sees) and return the outputs as bytes; the client writes them (see
+:mod:`logprep.run.executor`).
+"""
+
+from __future__ import annotations
+
+import logging
+from collections.abc import Callable, Iterator, Sequence
+from contextlib import contextmanager
+
+from logprep.errors import LogprepError, SettingsError
+
+INSTALL_HINT = "install the Dask extra: pip install 'logprep[dask]'"
+
+
+def _distributed():
+    try:
+        import distributed
+    except ImportError:
+        raise SettingsError(f"Dask is not installed; {INSTALL_HINT}") from None
+    return distributed
+
+
+@contextmanager
+def dask_client(scheduler: str | None = None, local_workers: int | None = None):
+    """A :class:`distributed.Client` connected to ``scheduler``, or to a local cluster of
+    ``local_workers`` single-threaded worker processes on the loopback interface (closed
+    again on exit)."""
+    distributed = _distributed()
+    if scheduler:
+        try:
+            client = distributed.Client(scheduler, timeout="20s")
+        except (OSError, TimeoutError, ValueError) as exc:
+            raise SettingsError(f"--scheduler {scheduler}: cannot reach the Dask scheduler "
+                                f"({exc}); start it with 'dask scheduler' and check the address") from None
+        try:
+            yield client
+        finally:
+            client.close()
+        return
+    cluster = distributed.LocalCluster(
+        n_workers=local_workers, threads_per_worker=1, processes=True, host="127.0.0.1",
+        dashboard_address=None, silence_logs=logging.ERROR,
+    )
+    client = distributed.Client(cluster)
+    try:
+        yield client
+    finally:
+        client.close()
+        cluster.close()
+
+
+def run_on_dask(fn: Callable, tasks: Sequence[tuple], shared: tuple = (), *,
+                scheduler: str | None = None, local_workers: int | None = None,
+                client=None) -> Iterator[tuple[int, object]]:
+    """As :func:`logprep.run.executor.run_tasks` on a Dask cluster: yields ``(i, result)``
+    as tasks finish; a task whose workers died (``KilledWorker``) yields
+    :class:`~logprep.run.executor.TaskLost`."""
+    from logprep.run.executor import TaskLost
+
+    distributed = _distributed()
+    if client is None:
+        with dask_client(scheduler, local_workers) as c:
+            yield from run_on_dask(fn, tasks, shared, client=c)
+        return
+    if not tasks:
+        return
+    shared_futs = client.scatter(list(shared), broadcast=True) if shared else []
+    futures = [client.submit(fn, *shared_futs, *task, pure=False) for task in tasks]
+    index = {f.key: i for i, f in enumerate(futures)}
+    for fut in distributed.as_completed(futures):
+        i = index[fut.key]
+        try:
+            result = fut.result()
+        except distributed.KilledWorker:
+            result = TaskLost("the Dask workers running this task stopped (killed, or out of "
+                              "memory); run it alone or give the workers more memory")
+        except (OSError, TimeoutError) as exc:
+            raise LogprepError(f"lost the connection to the Dask cluster ({exc})") from None
+        fut.release()
+        yield i, result

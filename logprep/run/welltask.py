@@ -1,0 +1,115 @@
+"""One well as a batch task: read, screen, draw and encode, returning every output as bytes.
+
+The task writes nothing, so it runs the same in this process, in a worker process or on a
+Dask worker on another machine; the process that started the run puts the files in place
+(:mod:`logprep.run.store`).  It reads the input at an absolute path (``readable``) but
+names it in every output and message as the user gave it (``given``), so a results folder
+does not depend on where it was made.
+"""
+
+from __future__ import annotations
+
+import os
+import socket
+import sys
+import time
+from dataclasses import dataclass, field, replace
+
+from logprep.errors import LogprepError
+
+SUMMARY_COLUMNS = ["well", "source", "status", "message", "layers", "sand_sand_windows",
+                   "min_window_sgr_pct", "folder"]
+
+STAGES = ("ingest", "compute", "drawing", "encoding")
+"""Timed stages of a well task (seconds each): reading the LAS file; the screening science;
+building the sheet pages and rendering them to PDF/PNG; tables, field and LAS export to bytes."""
+
+
+@dataclass(frozen=True)
+class OutputOptions:
+    """Which files a well gets: ``sheets`` (sheet.pdf, sheet.png), ``field``
+    (sgr_field.npz; ``--no-field`` leaves it out) and ``field_smear`` (the smear fields
+    in it too)."""
+
+    sheets: bool = True
+    field: bool = True
+    field_smear: bool = False
+
+    def to_dict(self) -> dict:
+        return {"sheets": self.sheets, "field": self.field, "field_smear": self.field_smear}
+
+
+@dataclass
+class WellOutcome:
+    """What a well task returns: its ``summary.csv`` row, its files (None on error), the
+    seconds per stage of :data:`STAGES`, and the peak memory (MB) of the process that ran it."""
+
+    row: dict
+    files: dict[str, bytes] | None
+    timings_s: dict[str, float] = field(default_factory=dict)
+    peak_rss_mb: float = float("nan")
+    worker: str = ""
+
+
+def summary_row(folder: str, given: str) -> dict:
+    return {"well": folder, "source": given, "status": "ok", "message": "", "layers": "",
+            "sand_sand_windows": "", "min_window_sgr_pct": "", "folder": ""}
+
+
+def peak_rss_mb() -> float:
+    """Peak resident memory of this process (MB), where the platform reports it."""
+    try:
+        import resource
+    except ImportError:  # Windows
+        return float("nan")
+    rss = resource.getrusage(resource.RUSAGE_SELF).ru_maxrss
+    return rss / (1024 * 1024) if sys.platform == "darwin" else rss / 1024
+
+
+def one_line(exc: Exception, given: str, readable: str) -> str:
+    """The first line of an error message, naming the file as the user gave it."""
+    msg = str(exc).splitlines()[0] if str(exc) else type(exc).__name__
+    msg = msg.replace(readable, given)
+    return msg if given in msg else f"{given}: {msg}"
+
+
+def screen_well_task(settings, tops, options: OutputOptions, given: str, readable: str,
+                     folder: str) -> WellOutcome:
+    """Screen the LAS file at ``readable`` (named ``given``) for folder ``folder``.
+
+    ``settings`` and ``tops`` (a tops table or None) are shared by the batch.  A
+    :class:`~logprep.errors.LogprepError` becomes a row with ``status`` ``error`` and no
+    files; any other exception is a bug and propagates.
+    """
+    from logprep.lasread import read_well
+    from logprep.outputs import pdf_bytes, png_bytes, render_well
+    from logprep.pipeline import screen_well
+
+    row = summary_row(folder, given)
+    t: dict[str, float] = dict.fromkeys(STAGES, 0.0)
+    worker = f"{socket.gethostname()}:{os.getpid()}"
+    t0 = time.perf_counter()
+    try:
+        well = read_well(readable, gr_curve=settings.gr_curve, depth_unit=settings.depth_unit)
+        well = replace(well, source=given)
+        t1 = time.perf_counter()
+        result = screen_well(well, settings, tops=tops)
+        t2 = time.perf_counter()
+        files = render_well(result, None, field=options.field, field_smear=options.field_smear)
+        t3 = time.perf_counter()
+        if options.sheets:
+            from logprep.sheet import build_sheet
+
+            pages = build_sheet(result)
+            files["sheet.pdf"] = pdf_bytes(pages)
+            files["sheet.png"] = png_bytes(pages[0])
+        t4 = time.perf_counter()
+    except LogprepError as exc:
+        row.update(status="error", message=one_line(exc, given, readable))
+        t["ingest"] = time.perf_counter() - t0
+        return WellOutcome(row, None, t, peak_rss_mb(), worker)
+    t.update(ingest=t1 - t0, compute=t2 - t1, encoding=t3 - t2, drawing=t4 - t3)
+    cross = result.windows[~result.windows["self_juxtaposed"]]
+    row.update(well=result.well.name, layers=len(result.layers), sand_sand_windows=len(cross),
+               min_window_sgr_pct=round(result.min_window_sgr_pct, 3), folder=folder)
+    return WellOutcome(row, dict(sorted(files.items())), t, peak_rss_mb(), worker)
