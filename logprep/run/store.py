@@ -88,13 +88,13 @@ def commit_folder(out_dir: Path, name: str, files: dict[str, bytes]) -> dict[str
         if target.exists():
             os.rename(target, old)
         os.rename(new, target)
-        with contextlib.suppress(OSError):
-            work.rmdir()  # gone once empty: no hidden folder left after a run
     except OSError as exc:
         raise _cannot(target, exc) from exc
     finally:
         shutil.rmtree(new, ignore_errors=True)
         shutil.rmtree(old, ignore_errors=True)
+        with contextlib.suppress(OSError):
+            work.rmdir()  # gone once empty: no hidden folder left after a run
     return {fname: sha256_bytes(data) for fname, data in files.items()}
 
 
