@@ -6,7 +6,12 @@ import numpy as np
 import pytest
 
 from logprep.fault.fieldcodec import (
-    SGR_NULL, decode_sgr_pct, encode_sgr_pct, field_arrays, npz_bytes, read_field_arrays,
+    SGR_NULL,
+    decode_sgr_pct,
+    encode_sgr_pct,
+    field_arrays,
+    npz_bytes,
+    read_field_arrays,
 )
 
 

@@ -124,8 +124,8 @@ def check_consistent(out: Path, ref: dict[str, bytes], stale: dict[str, bytes]) 
         if "INCOMPLETE.txt" in files:
             continue
 
-        def of(run):
-            return {k.split("/", 1)[1]: v for k, v in run.items() if k.startswith(folder.name + "/")}
+        def of(run, name=folder.name):
+            return {k.split("/", 1)[1]: v for k, v in run.items() if k.startswith(name + "/")}
 
         if files == of(stale):
             assert settings_now == stale["logprep-settings.toml"], f"{folder.name} is stale, unmarked"
