@@ -17,6 +17,9 @@ from logprep.errors import LogprepError, SettingsError
 
 INSTALL_HINT = "install the Dask extra: pip install 'logprep[dask]'"
 
+CONNECT_TIMEOUT_S = 15.0
+"""How long to try to reach a ``--scheduler`` before giving up."""
+
 
 def _distributed():
     try:
@@ -34,7 +37,7 @@ def dask_client(scheduler: str | None = None, local_workers: int | None = None):
     distributed = _distributed()
     if scheduler:
         try:
-            client = distributed.Client(scheduler, timeout="20s")
+            client = distributed.Client(scheduler, timeout=f"{CONNECT_TIMEOUT_S}s")
         except (OSError, TimeoutError, ValueError) as exc:
             raise SettingsError(f"--scheduler {scheduler}: cannot reach the Dask scheduler "
                                 f"({exc}); start it with 'dask scheduler' and check the address") from None
