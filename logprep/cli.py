@@ -7,10 +7,10 @@ import sys
 import warnings
 
 from logprep import __version__
-from logprep.blocking import BLOCKING_METHODS
+from logprep.layers.blocking import BLOCKING_METHODS
 from logprep.errors import LogprepError
-from logprep.sgr import SGR_FIELD_SOURCES
-from logprep.vshale import TRANSFORMS
+from logprep.fault.sgr import SGR_FIELD_SOURCES
+from logprep.clay.vshale import TRANSFORMS
 
 EXIT_OK, EXIT_SOME_FAILED, EXIT_USAGE = 0, 1, 2
 
@@ -66,7 +66,7 @@ def _fault_options(p: argparse.ArgumentParser, d) -> None:
 
 
 def _capacity_options(p: argparse.ArgumentParser, d) -> None:
-    from logprep.capacity import CO2_DENSITY_MODES
+    from logprep.fault.capacity import CO2_DENSITY_MODES
     from logprep.units import LENGTH_UNITS
 
     g = p.add_argument_group(
@@ -110,8 +110,8 @@ def _capacity_options(p: argparse.ArgumentParser, d) -> None:
 
 
 def _clay_quality_options(p: argparse.ArgumentParser, d) -> None:
-    from logprep.endpoints import ZONINGS
-    from logprep.vshale import COMBINATIONS
+    from logprep.clay.endpoints import ZONINGS
+    from logprep.clay.vshale import COMBINATIONS
 
     g = p.add_argument_group("clay volume: zones, neutron-density, GR checks")
     g.add_argument("--zoning", dest="zoning", choices=list(ZONINGS),
@@ -146,7 +146,7 @@ def _survey_options(p: argparse.ArgumentParser, d) -> None:
 
 
 def _pair_options(p: argparse.ArgumentParser, d) -> None:
-    from logprep.twowell import SLIP_SOURCES
+    from logprep.fault.twowell import SLIP_SOURCES
 
     g = p.add_argument_group("well pairs across a fault")
     g.add_argument("--pair-slip-from", dest="pair_slip_source", choices=list(SLIP_SOURCES),
@@ -161,7 +161,7 @@ whose default is None (not given); add a function here for a new group."""
 
 
 def _add_screen_options(p: argparse.ArgumentParser) -> None:
-    from logprep.pipeline import ScreenSettings
+    from logprep.run.pipeline import ScreenSettings
 
     d = ScreenSettings()
     for add_group in SETTINGS_OPTION_GROUPS:
@@ -172,7 +172,7 @@ def _given_settings(args) -> dict:
     """The :class:`ScreenSettings` fields given on the command line."""
     from dataclasses import fields
 
-    from logprep.pipeline import ScreenSettings
+    from logprep.run.pipeline import ScreenSettings
 
     names = {f.name for f in fields(ScreenSettings)}
     return {k: v for k, v in vars(args).items() if k in names and v is not None}
@@ -180,14 +180,14 @@ def _given_settings(args) -> dict:
 
 def _config_from_args(args) -> tuple[dict, dict]:
     """Settings and tune ranges from ``--config`` (empty without one)."""
-    from logprep.config import read_config
+    from logprep.run.config import read_config
 
     return read_config(args.config) if getattr(args, "config", None) else ({}, {})
 
 
 def _settings_from_args(args):
     """ScreenSettings from defaults, then ``--config``, then the options given."""
-    from logprep.pipeline import ScreenSettings
+    from logprep.run.pipeline import ScreenSettings
 
     from_file, _ = _config_from_args(args)
     return ScreenSettings(**{**from_file, **_given_settings(args)})
@@ -212,8 +212,8 @@ def _progress(stream):
 
 
 def cmd_screen(args) -> int:
-    from logprep.batch import screen_paths
-    from logprep.examples import example_logs_dir
+    from logprep.run.batch import screen_paths
+    from logprep.io.examples import example_logs_dir
 
     settings = _settings_from_args(args)
     paths = args.paths
@@ -232,7 +232,7 @@ def cmd_screen(args) -> int:
         if args.pairs is None:
             args.pairs = str(demo / "pairs.csv")
     if args.pairs:
-        from logprep.pairs import read_pairs
+        from logprep.run.pairs import read_pairs
 
         read_pairs(args.pairs)  # a bad pairs file is a usage error, found before the wells run
     report = screen_paths(
@@ -247,7 +247,7 @@ def cmd_screen(args) -> int:
           f"results in {args.out}, summary {report.summary_path}")
     failed = bool(report.failures)
     if args.pairs:
-        from logprep.pairs import screen_pairs
+        from logprep.run.pairs import screen_pairs
 
         rows = screen_pairs(paths, args.pairs, args.out, settings,
                             on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
@@ -260,10 +260,10 @@ def cmd_screen(args) -> int:
 
 
 def cmd_tune(args) -> int:
-    from logprep.tune import DEFAULT_MIN_BEDS_M, DEFAULT_SAND_CUTOFFS, DEFAULT_SHALE_CUTOFFS
-    from logprep.tune import sweep_file, write_sweep
+    from logprep.run.tune import DEFAULT_MIN_BEDS_M, DEFAULT_SAND_CUTOFFS, DEFAULT_SHALE_CUTOFFS
+    from logprep.run.tune import sweep_file, write_sweep
 
-    from logprep.outputs import prepare_out_dir
+    from logprep.report.writers import prepare_out_dir
 
     settings = _settings_from_args(args)
     _, ranges = _config_from_args(args)

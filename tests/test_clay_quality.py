@@ -11,12 +11,12 @@ import pandas as pd
 import pytest
 
 from conftest import open_logs_path
-from logprep.endpoints import changepoint_bounds, pick_endpoints, zone_bounds
+from logprep.clay.endpoints import changepoint_bounds, pick_endpoints, zone_bounds
 from logprep.errors import SettingsError
-from logprep.lasread import read_well
-from logprep.pipeline import ScreenSettings, clay_volume, screen_file
-from logprep.qc import QC_FLAGS, flag_code, gr_flags, qc_table
-from logprep.vshale import (
+from logprep.io.las import read_well
+from logprep.run.pipeline import ScreenSettings, clay_volume, screen_file
+from logprep.clay.qc import QC_FLAGS, flag_code, gr_flags, qc_table
+from logprep.clay.vshale import (
     COMBINATIONS, density_g_cm3, density_porosity, gas_crossover, neutron_v_v, vsh_neutron_density,
 )
 
@@ -133,8 +133,8 @@ def test_bad_samples_excluded_from_picks():
 def test_density_correction_gate():
     # Common practice, no source (value from memory): |DRHO| above about 0.1 g/cm3 means
     # poor pad contact; the sign does not matter and a missing DRHO is not flagged.
-    from logprep.qc import density_correction_flags
-    from logprep.vshale import density_correction_g_cm3
+    from logprep.clay.qc import density_correction_flags
+    from logprep.clay.vshale import density_correction_g_cm3
 
     d = np.array([0.0, 0.099, -0.101, 0.2, np.nan])
     assert density_correction_flags(d, 0.10).tolist() == [False, False, True, True, False]
@@ -189,7 +189,7 @@ def test_flag_code_bits_round_trip():
 def test_las_export_round_trip(tmp_path, example_dir):
     import lasio
 
-    from logprep.lasexport import las_bytes
+    from logprep.report.lasexport import las_bytes
 
     r = screen_file(example_dir / "HRM-4.las")
     path = tmp_path / "curves.las"
@@ -235,7 +235,7 @@ FLOORS = {"31_2-1": 0.90, "31_6-5": 0.84, "33_9-1": 0.87}
 
 @pytest.mark.parametrize("stem", list(FLOORS))
 def test_default_vsh_floor_on_labelled_wells(stem):
-    from logprep.validation import balanced_accuracy, baseline_vsh
+    from logprep.clay.scoring import balanced_accuracy, baseline_vsh
 
     well = read_well(open_logs_path("force2020_norway", f"{stem}.las"))
     label = well.curves["FORCE_2020_LITHOFACIES_LITHOLOGY"]

@@ -5,11 +5,11 @@ import pandas as pd
 import pytest
 
 from logprep.cli import main
-from logprep.config import ConfigError, read_config, settings_toml, write_settings
+from logprep.run.config import ConfigError, read_config, settings_toml, write_settings
 from logprep.model import Layers
-from logprep.pipeline import ScreenSettings
-from logprep.tune import parse_values, sweep_file, window_verdicts
-from logprep.juxtaposition import sand_windows
+from logprep.run.pipeline import ScreenSettings
+from logprep.run.tune import parse_values, sweep_file, window_verdicts
+from logprep.fault.juxtaposition import sand_windows
 
 
 def test_settings_round_trip(tmp_path):

@@ -1,7 +1,7 @@
 """Seal capacity: from shale gouge ratio to fault-zone capillary pressure and column height.
 
 Pure functions (arrays in, arrays out) plus :func:`seal_capacity_table`, which adds the
-seal-capacity columns to the sand-sand windows of :func:`logprep.juxtaposition.sand_windows`.
+seal-capacity columns to the sand-sand windows of :func:`logprep.fault.juxtaposition.sand_windows`.
 
 Method
 ------
@@ -40,10 +40,10 @@ from dataclasses import dataclass
 import numpy as np
 import pandas as pd
 
-from logprep import faultrock
+from logprep.fault import faultrock
 from logprep.errors import SettingsError
-from logprep.juxtaposition import cumulative_clay
-from logprep.lasread import DEPTH_UNITS_M
+from logprep.fault.juxtaposition import cumulative_clay
+from logprep.io.las import DEPTH_UNITS_M
 from logprep.model import Layers, WellLog
 from logprep.units import G_MPS2, LENGTH_UNITS, PA_PER_BAR
 
@@ -252,7 +252,7 @@ class CapacityParams:
 
 
 def capacity_params(settings) -> CapacityParams:
-    """The :class:`CapacityParams` of a :class:`~logprep.pipeline.ScreenSettings`."""
+    """The :class:`CapacityParams` of a :class:`~logprep.run.pipeline.ScreenSettings`."""
     s = settings
     return CapacityParams(
         rho_brine_kgm3=s.brine_density_kgm3, rho_oil_kgm3=s.oil_density_kgm3,
@@ -302,7 +302,7 @@ def contact_ends(w, throw_m):
 def sgr_between_pct(layers: Layers, footwall_depth_m, hangingwall_depth_m):
     """SGR (%) of the slipped interval between a hanging-wall depth and the footwall depth
     facing it: ``100 (C(z) - C(z - t)) / t`` (Yielding et al. 1997), the same value as
-    :func:`logprep.juxtaposition.sgr_layered_pct` at throw ``t = z_fw - z_hw`` but with the
+    :func:`logprep.fault.juxtaposition.sgr_layered_pct` at throw ``t = z_fw - z_hw`` but with the
     two depths given, so a point on a bed edge stays on it."""
     bounds, clay = cumulative_clay(layers)
     z, zh = np.asarray(footwall_depth_m, float), np.asarray(hangingwall_depth_m, float)
@@ -368,7 +368,7 @@ def seal_capacity_table(windows: pd.DataFrame, layers: Layers, params: CapacityP
     Parameters
     ----------
     windows : DataFrame
-        From :func:`logprep.juxtaposition.sand_windows`.
+        From :func:`logprep.fault.juxtaposition.sand_windows`.
     layers : Layers
         The blocked column the windows come from (depths as logged, m).
     params : CapacityParams
@@ -387,7 +387,7 @@ def seal_capacity_table(windows: pd.DataFrame, layers: Layers, params: CapacityP
     smallest leak-point columns over the window's throws (see :func:`window_columns_m`),
     measured from the top of the contact; ``verdict`` compares the minimum SGR with the
     thresholds.  The fault-rock columns are at the point of minimum SGR, with the throw
-    there as displacement (see :mod:`logprep.faultrock`).
+    there as displacement (see :mod:`logprep.fault.faultrock`).
     """
     if length_unit not in LENGTH_UNITS:
         raise SettingsError(f"unknown length unit {length_unit!r}; use one of {', '.join(LENGTH_UNITS)}")

@@ -16,10 +16,10 @@ from matplotlib.backends.backend_agg import FigureCanvasAgg
 from matplotlib.backends.backend_pdf import PdfPages
 
 from logprep.errors import OutputError
-from logprep.juxtaposition import WINDOW_COLUMNS
-from logprep.survey import true_stratigraphic_thickness_m
-from logprep.lasexport import las_bytes
-from logprep.qc import any_flag, layer_fraction, qc_table
+from logprep.fault.juxtaposition import WINDOW_COLUMNS
+from logprep.io.survey import true_stratigraphic_thickness_m
+from logprep.report.lasexport import las_bytes
+from logprep.clay.qc import any_flag, layer_fraction, qc_table
 
 SUMMARY_COLUMNS = ["well", "source", "status", "message", "layers", "sand_sand_windows",
                    "min_window_sgr_pct", "folder"]

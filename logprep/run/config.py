@@ -1,4 +1,4 @@
-"""Settings files: every :class:`~logprep.pipeline.ScreenSettings` field (and the sweep
+"""Settings files: every :class:`~logprep.run.pipeline.ScreenSettings` field (and the sweep
 ranges of ``logprep tune``) read from TOML, and the effective settings of a run written back
 so the run can be repeated exactly.
 
@@ -38,7 +38,7 @@ class ConfigError(LogprepError, ValueError):
 
 
 def _settings_types() -> dict[str, object]:
-    from logprep.pipeline import ScreenSettings
+    from logprep.run.pipeline import ScreenSettings
 
     hints = typing.get_type_hints(ScreenSettings)
     return {f.name: hints[f.name] for f in fields(ScreenSettings)}
@@ -138,7 +138,7 @@ def settings_toml(settings, tune: dict | None = None) -> str:
 
 def write_settings(path: str | Path, settings, tune: dict | None = None) -> Path:
     """Write :func:`settings_toml` to ``path`` atomically; returns the path."""
-    from logprep.outputs import write_bytes_atomic
+    from logprep.report.writers import write_bytes_atomic
 
     path = Path(path)
     write_bytes_atomic(path, settings_toml(settings, tune).encode("utf-8"))

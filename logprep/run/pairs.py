@@ -16,11 +16,11 @@ from typing import Callable, Iterable
 import numpy as np
 import pandas as pd
 
-from logprep.csvtable import parse_number, read_csv_table
+from logprep.io.csvtable import parse_number, read_csv_table
 from logprep.errors import LogprepError
-from logprep.outputs import csv_bytes, folder_name, pdf_bytes, png_bytes, write_bytes_atomic
-from logprep.tops import well_key
-from logprep.twowell import PairError, marker_shift_m, two_well_field, two_well_windows
+from logprep.report.writers import csv_bytes, folder_name, pdf_bytes, png_bytes, write_bytes_atomic
+from logprep.io.tops import well_key
+from logprep.fault.twowell import PairError, marker_shift_m, two_well_field, two_well_windows
 
 PAIRS_SUMMARY_COLUMNS = ["footwall", "hangingwall", "marker", "shift_m", "slip_source", "status",
                          "message", "sand_sand_windows", "min_window_sgr_pct", "folder"]
@@ -66,8 +66,8 @@ def pair_sheet(fw, hw, shift_m: float, windows: pd.DataFrame, grid, settings, ti
     from matplotlib.figure import Figure
     from matplotlib.patches import Patch
 
-    from logprep.caution import CAUTION
-    from logprep.sheet import (LITHOLOGY_COLOURS, PAGE_SIZE_IN, draw_field, draw_sgr_colourbar)
+    from logprep.report.caution import CAUTION
+    from logprep.report.sheet import (LITHOLOGY_COLOURS, PAGE_SIZE_IN, draw_field, draw_sgr_colourbar)
 
     fig = Figure(figsize=PAGE_SIZE_IN)
     fig.suptitle(title, x=0.015, ha="left", fontsize=14, fontweight="bold")
@@ -115,10 +115,10 @@ def screen_pairs(
     """Screen every pair of ``pairs_file`` (wells found among the LAS files under
     ``paths``) and write one folder per pair plus ``pairs_summary.csv`` in ``out_dir``
     (``sheets=False``: no ``sheet.pdf``/``sheet.png``).  Returns the summary rows."""
-    from logprep.batch import find_las_files
-    from logprep.lasread import read_well_name
-    from logprep.pipeline import screen_file
-    from logprep.tops import read_tops
+    from logprep.run.batch import find_las_files
+    from logprep.io.las import read_well_name
+    from logprep.run.pipeline import screen_file
+    from logprep.io.tops import read_tops
 
     out = Path(out_dir)
     pairs = read_pairs(pairs_file)

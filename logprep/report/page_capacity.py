@@ -9,10 +9,10 @@ import textwrap
 import numpy as np
 from matplotlib.figure import Figure
 
-from logprep.capacity import (
+from logprep.fault.capacity import (
     envelope_c, fault_zone_pressure_bar, column_height_m, window_columns_m, window_throws,
 )
-from logprep.sheet import INK, PAGE_SIZE_IN, draw_footer, riskiest_windows
+from logprep.report.sheet import INK, PAGE_SIZE_IN, draw_footer, riskiest_windows
 from logprep.units import M_PER_FT
 
 N_CURVES = 8

@@ -1,6 +1,6 @@
 """One well from file to results: the Python API that the CLI and notebooks call.
 
->>> from logprep.pipeline import ScreenSettings, screen_file          # doctest: +SKIP
+>>> from logprep.run.pipeline import ScreenSettings, screen_file          # doctest: +SKIP
 >>> result = screen_file("A-1.las", ScreenSettings(sand_cutoff=0.3))  # doctest: +SKIP
 >>> result.windows                                                    # doctest: +SKIP
 """
@@ -13,25 +13,25 @@ from pathlib import Path
 import numpy as np
 import pandas as pd
 
-from logprep.blocking import block_with_boundaries, check_cutoffs, fill_gaps, get_blocking_method
-from logprep.capacity import (
+from logprep.layers.blocking import block_with_boundaries, check_cutoffs, fill_gaps, get_blocking_method
+from logprep.fault.capacity import (
     CO2_DENSITY_MODES, CapacityParams, capacity_params, depth_datum, seal_capacity_table,
 )
 from logprep.errors import SettingsError
-from logprep.juxtaposition import sand_windows
-from logprep.endpoints import (
+from logprep.fault.juxtaposition import sand_windows
+from logprep.clay.endpoints import (
     PICK_COLUMNS, ZONINGS, lines_per_sample, nd_shale_separation, pick_endpoints, zone_bounds,
 )
-from logprep.lasread import DEPTH_UNITS_M, read_well, well_curve
+from logprep.io.las import DEPTH_UNITS_M, read_well, well_curve
 from logprep.model import Layers, WellLog
 from logprep.units import LENGTH_UNITS
-from logprep.qc import ND_ONLY, REPLACED, QcSettings, any_flag, density_correction_flags, gr_flags, inches
-from logprep.sgr import SGR_FIELD_SOURCES, SgrField, sgr_field
-from logprep.smear import window_smear, with_smear_fields
-from logprep.twowell import SLIP_SOURCES
-from logprep.survey import find_survey, read_survey, tvd_at_md, well_to_tvd
-from logprep.tops import TOPS_COLUMNS, read_tops, tops_for_well
-from logprep.vshale import (
+from logprep.clay.qc import ND_ONLY, REPLACED, QcSettings, any_flag, density_correction_flags, gr_flags, inches
+from logprep.fault.sgr import SGR_FIELD_SOURCES, SgrField, sgr_field
+from logprep.fault.smear import window_smear, with_smear_fields
+from logprep.fault.twowell import SLIP_SOURCES
+from logprep.io.survey import find_survey, read_survey, tvd_at_md, well_to_tvd
+from logprep.io.tops import TOPS_COLUMNS, read_tops, tops_for_well
+from logprep.clay.vshale import (
     density_correction_g_cm3, density_g_cm3, density_porosity, gamma_ray_index, gas_crossover, get_combination,
     get_transform, neutron_v_v, parse_endpoint, vsh_neutron_density,
 )
@@ -56,7 +56,7 @@ class ScreenSettings:
     Attributes
     ----------
     transform : str
-        IGR -> Vsh transform, a key of :data:`logprep.vshale.TRANSFORMS`.
+        IGR -> Vsh transform, a key of :data:`logprep.clay.vshale.TRANSFORMS`.
     gr_clean, gr_shale : float or str
         GR endpoints: a value in API, or a percentile ``"pN"`` of the well's readings.
     sand_cutoff, shale_cutoff : float
@@ -66,7 +66,7 @@ class ScreenSettings:
     throw_max_m : float
         Largest throw screened (m).
     blocking : str
-        Blocking method, a key of :data:`logprep.blocking.BLOCKING_METHODS`.
+        Blocking method, a key of :data:`logprep.layers.blocking.BLOCKING_METHODS`.
     sgr_threshold_pct : float
         SGR above which a fault is taken to seal in the screening verdict.  About 15-20 %
         in many calibrations (Yielding et al. 1997; Yielding 2002): calibrate locally.
@@ -107,7 +107,7 @@ class ScreenSettings:
         None takes the burial depth.
     zoning : str
         How the well is cut into zones for the GR endpoint picks, one of
-        :data:`logprep.endpoints.ZONINGS`: ``auto`` (tops when the well has some, else
+        :data:`logprep.clay.endpoints.ZONINGS`: ``auto`` (tops when the well has some, else
         changepoints of the GR baseline), ``tops``, ``changepoint`` or ``none``.
     zone_min_m : float
         Shortest zone (m) the changepoint split makes.
@@ -115,10 +115,10 @@ class ScreenSettings:
         Least step (API) of the GR baseline between two changepoint zones.
     min_contrast : float
         A zone whose clean-shale contrast is below this fraction of the well's is treated
-        as one-sided (see :func:`logprep.endpoints.pick_endpoints`).
+        as one-sided (see :func:`logprep.clay.endpoints.pick_endpoints`).
     vsh_combine : str
         How the GR and neutron-density Vsh make the chosen Vsh, a key of
-        :data:`logprep.vshale.COMBINATIONS` (``gr`` ignores neutron-density).
+        :data:`logprep.clay.vshale.COMBINATIONS` (``gr`` ignores neutron-density).
     washout_in : float
         Caliper over bit size (inches) above which a sample is a washout.
     drho_max_g_cm3 : float
@@ -127,12 +127,12 @@ class ScreenSettings:
     changepoint_penalty : float
         For ``blocking = "changepoint"``: cost of one change of mean Vsh, as a multiple of
         (noise sd)^2 x ln(samples); 2 matches the Schwarz criterion, larger gives fewer
-        layers (see :func:`logprep.blocking.block_changepoint`).
+        layers (see :func:`logprep.layers.blocking.block_changepoint`).
     honour_tops : bool
         Force a layer boundary at every formation top of the well (needs ``tops_file``).
     sgr_field_source : str
         Clay source of the SGR field (``sgr_field.npz`` and the triangle diagram), a key of
-        :data:`logprep.sgr.SGR_FIELD_SOURCES`: ``layers`` (blocked column) or ``curve``
+        :data:`logprep.fault.sgr.SGR_FIELD_SOURCES`: ``layers`` (blocked column) or ``curve``
         (continuous Vsh, partial samples weighted by length).
     field_depth_step_m : float or None
         Row spacing of the field (m), rounded to a whole number of log samples (at least
@@ -141,13 +141,13 @@ class ScreenSettings:
         Column spacing of the field (m).
     survey_dir : str or None
         Folder of deviation surveys, ``<well name or file stem>.csv`` (MD, inclination,
-        azimuth; see :mod:`logprep.survey`).  A well with a survey is screened on TVD by
+        azimuth; see :mod:`logprep.io.survey`).  A well with a survey is screened on TVD by
         minimum curvature; a well without one is taken as vertical.
     bed_dip_deg : float
         Bed dip (degrees) for the true stratigraphic thickness ``tst_m`` in ``layers.csv``.
     pair_slip_source : str
         For well pairs (``--pairs``): the column the slipped interval is taken from, a key
-        of :data:`logprep.twowell.SLIP_SOURCES` (``footwall``, ``hangingwall``, ``average``).
+        of :data:`logprep.fault.twowell.SLIP_SOURCES` (``footwall``, ``hangingwall``, ``average``).
     """
 
     transform: str = "linear"
@@ -301,7 +301,7 @@ class WellScreening:
     ``gr_api`` is the GR as read; ``filled`` marks samples whose Vsh was interpolated (GR
     missing, or replaced after QC).  ``vsh_gr`` and ``vsh_nd`` are the two estimates
     before combination (``vsh_nd`` NaN without neutron and density logs); ``qc_flags``
-    holds the boolean flags of :data:`logprep.qc.QC_FLAGS`; ``picks`` the endpoint picks
+    holds the boolean flags of :data:`logprep.clay.qc.QC_FLAGS`; ``picks`` the endpoint picks
     per zone (``picks.csv``); ``gr_clean_line``/``gr_shale_line`` the lines per sample.
     ``gr_clean_api``/``gr_shale_api`` are the whole-well lines, for reference.
     """
@@ -473,7 +473,7 @@ def screen_well(
 ) -> WellScreening:
     """Run the screening science on a well already read.
 
-    ``tops`` is a tops table for any number of wells (see :mod:`logprep.tops`); when it is
+    ``tops`` is a tops table for any number of wells (see :mod:`logprep.io.tops`); when it is
     None and ``settings.tops_file`` is set, that file is read.
     """
     picks = well_tops(well, settings, tops)
@@ -514,7 +514,7 @@ def screen_well(
 
 def seal_capacity_step(well: WellLog, layers: Layers, windows: pd.DataFrame,
                        settings: ScreenSettings) -> tuple[pd.DataFrame, str]:
-    """Seal-capacity columns for the windows (see :mod:`logprep.capacity`) and a note on
+    """Seal-capacity columns for the windows (see :mod:`logprep.fault.capacity`) and a note on
     the depth datum used for burial, pressure and temperature."""
     datum, source = depth_datum(well)
     if settings.max_burial_m is not None:

@@ -3,7 +3,7 @@
 Curves: DEPT (m), GR as read, the clean and shale lines, Vsh from GR, from
 neutron-density and the chosen Vsh, the lithology code of the blocked layer at each sample
 (0 sand, 1 heterolith, 2 shale; see :data:`logprep.model.LITHOLOGIES`) and the QC flags
-packed as bits (:data:`logprep.qc.QC_FLAGS`).  Missing values are -999.25.
+packed as bits (:data:`logprep.clay.qc.QC_FLAGS`).  Missing values are -999.25.
 """
 
 from __future__ import annotations
@@ -15,7 +15,7 @@ import numpy as np
 
 from logprep import __version__
 from logprep.model import LITHOLOGIES
-from logprep.qc import QC_FLAGS, flag_code
+from logprep.clay.qc import QC_FLAGS, flag_code
 
 NULL = -999.25
 
@@ -50,7 +50,7 @@ def export_curves(result) -> dict[str, tuple[np.ndarray, str, str]]:
 
 
 def las_bytes(result) -> bytes:
-    """The LAS 2.0 file of one :class:`~logprep.pipeline.WellScreening`, as bytes."""
+    """The LAS 2.0 file of one :class:`~logprep.run.pipeline.WellScreening`, as bytes."""
     las = lasio.LASFile()
     las.well["WELL"].value = result.well.name
     las.well["NULL"].value = NULL

@@ -18,7 +18,7 @@ from pathlib import Path
 
 import pandas as pd
 
-from logprep.csvtable import decode_text, read_csv_table
+from logprep.io.csvtable import decode_text, read_csv_table
 from logprep.errors import LogprepError
 
 TOPS_COLUMNS = ["well", "top_m", "name"]

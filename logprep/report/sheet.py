@@ -1,7 +1,7 @@
 """The per-well screening sheet: builds matplotlib Figures, never saves or shows them.
 
 Page 1 is assembled from panel functions (``draw_*``), each drawing one axes from a
-:class:`~logprep.pipeline.WellScreening`; later pages come from the functions in
+:class:`~logprep.run.pipeline.WellScreening`; later pages come from the functions in
 :data:`EXTRA_PAGES`, each returning a list of Figures.  To add a page, append a function
 there; to change a panel, edit its ``draw_*`` function only.
 
@@ -20,7 +20,7 @@ from matplotlib.figure import Figure
 from matplotlib.patches import Patch
 
 from logprep import __version__
-from logprep.caution import CAUTION
+from logprep.report.caution import CAUTION
 
 LITHOLOGY_COLOURS = {"sand": "#F0E442", "heterolith": "#E69F00", "shale": "#8C8C8C"}
 SGR_CONTOURS_PCT = (10, 20, 30, 40, 60)
@@ -112,7 +112,7 @@ WINDOW_INK = "#D55E00"  # Okabe & Ito vermillion: sand-sand window outlines
 MAX_DRAWN_ROWS = 700
 CLASS_HATCHES = {1: "////", 2: "...."}
 """Juxtaposition classes hatched on the triangle diagram (codes of
-:data:`logprep.juxtaposition.JUXTAPOSITION_CLASSES`): sand/sand and sand/heterolith."""
+:data:`logprep.fault.juxtaposition.JUXTAPOSITION_CLASSES`): sand/sand and sand/heterolith."""
 
 
 def sgr_levels(threshold_pct: float) -> list[float]:
@@ -143,13 +143,13 @@ def field_ylim(depth, dz: float) -> tuple[float, float]:
 
 def draw_field(ax, grid, *, threshold_pct: float, throw_max_m: float, windows=None,
                labelled=(), hw_shift_m: float = 0.0):
-    """Triangle diagram from an :class:`~logprep.sgr.SgrField`: SGR as colour, contours at
+    """Triangle diagram from an :class:`~logprep.fault.sgr.SgrField`: SGR as colour, contours at
     the screening threshold (bold) and fixed levels, the juxtaposition classes of
     :data:`CLASS_HATCHES` hatched, and the sand-sand windows of ``windows``
     outlined (the rows in ``labelled``, numbered from 1, thicker and numbered).
     ``hw_shift_m`` converts a window's hanging-wall depths into the footwall frame.
     Returns the SGR image (for a colour bar)."""
-    from logprep.sgr import contact_polygon
+    from logprep.fault.sgr import contact_polygon
 
     step = max(1, int(np.ceil(grid.depth_m.size / MAX_DRAWN_ROWS)))
     depth, throw = grid.depth_m[::step], grid.throw_m
@@ -430,15 +430,15 @@ def window_table_pages(result) -> list[Figure]:
 
 
 def capacity_pages(result) -> list[Figure]:
-    """The seal-capacity page (drawn by :mod:`logprep.sheet_capacity`)."""
-    from logprep.sheet_capacity import seal_capacity_page
+    """The seal-capacity page (drawn by :mod:`logprep.report.page_capacity`)."""
+    from logprep.report.page_capacity import seal_capacity_page
 
     return [seal_capacity_page(result)]
 
 
 def smear_pages(result) -> list[Figure]:
-    """The shale-smear page (drawn by :mod:`logprep.sheet_smear`)."""
-    from logprep.sheet_smear import smear_page
+    """The shale-smear page (drawn by :mod:`logprep.report.page_smear`)."""
+    from logprep.report.page_smear import smear_page
 
     return smear_page(result)
 
@@ -449,7 +449,7 @@ EXTRA_PAGES: list[Callable[[object], list[Figure]]] = [capacity_pages, smear_pag
 
 
 def build_sheet(result) -> list[Figure]:
-    """The screening sheet for one :class:`~logprep.pipeline.WellScreening`."""
+    """The screening sheet for one :class:`~logprep.run.pipeline.WellScreening`."""
     pages = [overview_page(result)]
     for make in EXTRA_PAGES:
         pages += make(result)

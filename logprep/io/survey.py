@@ -29,9 +29,9 @@ from pathlib import Path
 import numpy as np
 import pandas as pd
 
-from logprep.csvtable import read_csv_table
+from logprep.io.csvtable import read_csv_table
 from logprep.errors import LogprepError
-from logprep.tops import well_key
+from logprep.io.tops import well_key
 
 FT = 0.3048
 
