@@ -38,7 +38,8 @@ import pandas as pd
 
 from logprep.io.las import read_well
 from logprep.model import WellLog
-from logprep.run.pipeline import ScreenSettings, clay_volume
+from logprep.clay.stage import clay_volume
+from logprep.run.settings import ScreenSettings
 from logprep.clay.scoring import balanced_accuracy, baseline_vsh
 
 REPO = Path(__file__).resolve().parents[1]
@@ -75,7 +76,7 @@ def score_well(well: WellLog, label, sand_codes, shale_codes, settings=ScreenSet
     label = np.asarray(label, dtype=float)
     is_sand, is_shale = np.isin(label, sand_codes), np.isin(label, shale_codes)
     base = balanced_accuracy(baseline_vsh(well.gr_api), is_sand, is_shale)
-    cv = clay_volume(well, settings)
+    cv = clay_volume(well, settings.clay)
     i0 = int(np.searchsorted(well.depth_m, cv.depth_m[0]))
     sl = slice(i0, i0 + cv.depth_m.size)
     default = balanced_accuracy(cv.vsh, is_sand[sl], is_shale[sl])

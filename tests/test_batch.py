@@ -7,7 +7,7 @@ import pandas as pd
 
 from logprep.run.batch import screen_paths
 from logprep.cli import main
-from logprep.run.pipeline import ScreenSettings
+from logprep.run.settings import ScreenSettings
 
 
 def test_jobs_give_identical_results(tmp_path, example_dir, data_dir):

@@ -16,9 +16,10 @@ import pandas as pd
 import pytest
 
 from logprep.fault.capacity import (
-    CAPACITY_COLUMNS, CapacityParams, co2_density_kgm3, column_height_m, depth_datum,
-    envelope_c, fault_zone_pressure_bar, leak_point_column_m, leak_point_column_points_m,
-    seal_capacity_table, verdict, window_columns_m, window_throws,
+    CAPACITY_COLUMNS, CapacityParams, seal_capacity_table, verdict, window_columns_m, window_throws,
+)
+from logprep.fault.envelope import (
+    co2_density_kgm3, column_height_m, depth_datum, envelope_c, fault_zone_pressure_bar, leak_point_column_m, leak_point_column_points_m,
 )
 from logprep.errors import SettingsError
 from logprep.fault.juxtaposition import WINDOW_COLUMNS, sand_windows, sgr_layered_pct
@@ -269,7 +270,7 @@ def test_co2_density_typical_storage_range():
     # IPCC (2005) SRCCS ch. 5 [M]: supercritical CO2 about 500-800 kg/m3 at storage depths;
     # 1.5-3 km on a hydrostatic gradient and 30 C/km from 10 C (common practice, no source).
     pytest.importorskip("CoolProp")
-    from logprep.fault.capacity import geothermal_temperature_k, hydrostatic_pressure_pa
+    from logprep.fault.envelope import geothermal_temperature_k, hydrostatic_pressure_pa
 
     z = np.array([1500.0, 2000.0, 3000.0])
     rho = co2_density_kgm3(hydrostatic_pressure_pa(z, 1050.0), geothermal_temperature_k(z, 10.0, 30.0))

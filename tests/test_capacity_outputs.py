@@ -10,7 +10,8 @@ import pytest
 from logprep.fault.capacity import CAPACITY_COLUMNS
 from logprep.cli import main
 from logprep.fault.juxtaposition import WINDOW_COLUMNS
-from logprep.run.pipeline import ScreenSettings, screen_file
+from logprep.run.pipeline import screen_file
+from logprep.run.settings import ScreenSettings
 from logprep.report.sheet import TABLE_HEAD, build_sheet, window_rows
 
 

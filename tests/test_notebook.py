@@ -6,7 +6,7 @@ from pathlib import Path
 import pytest
 
 from logprep.run.config import read_config
-from logprep.run.pipeline import ScreenSettings
+from logprep.run.settings import ScreenSettings
 
 NOTEBOOK = Path(__file__).resolve().parents[1] / "notebooks" / "tune_blocking.ipynb"
 

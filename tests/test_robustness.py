@@ -10,7 +10,8 @@ import pytest
 
 from logprep.cli import main
 from logprep.errors import LogprepError, SettingsError
-from logprep.run.pipeline import ScreenSettings, screen_file
+from logprep.run.pipeline import screen_file
+from logprep.run.settings import ScreenSettings
 from logprep.io.tops import read_tops
 
 

@@ -60,7 +60,7 @@ def smear_page(result) -> list[Figure]:
     gs = fig.add_gridspec(1, 2, left=0.05, right=0.98, top=0.88, bottom=0.2, wspace=0.12)
     ax1 = fig.add_subplot(gs[0])
     ax2 = fig.add_subplot(gs[1], sharey=ax1)
-    throw_max = result.settings.throw_max_m
+    throw_max = result.settings.field.throw_max_m
 
     depth, throw, ssf, im = _image(ax1, grid, grid.extra["ssf"], "viridis",
                                    matplotlib.colors.Normalize(*SSF_RANGE))

@@ -112,7 +112,7 @@ def well_tables(result) -> dict[str, pd.DataFrame]:
     windows = result.windows.copy()
     extra = [c for c in windows.columns if c not in WINDOW_COLUMNS]
     layers = result.layers.to_frame()
-    layers["tst_m"] = true_stratigraphic_thickness_m(layers["thickness_m"], result.settings.bed_dip_deg)
+    layers["tst_m"] = true_stratigraphic_thickness_m(layers["thickness_m"], result.settings.input.bed_dip_deg)
     if result.qc_flags:
         layers["qc_flagged_fraction"] = layer_fraction(
             result.depth_m, any_flag(result.qc_flags), result.layers.top_m, result.layers.base_m)

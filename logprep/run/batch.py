@@ -9,7 +9,8 @@ from typing import Callable, Iterable
 from logprep.run.config import SETTINGS_FILE_NAME, write_settings
 from logprep.errors import LogprepError
 from logprep.report.writers import folder_name, prepare_out_dir, render_well, write_summary, write_well
-from logprep.run.pipeline import ScreenSettings, screen_file
+from logprep.run.pipeline import screen_file
+from logprep.run.settings import ScreenSettings
 from logprep.io.survey import check_survey_dir
 from logprep.io.tops import read_tops
 
@@ -105,9 +106,9 @@ def screen_paths(
         raise LogprepError(f"--jobs must be 1 or more (got {jobs})")
     # inputs shared by every well are checked once, before any well is screened
     prepare_out_dir(out)
-    tops = read_tops(settings.tops_file) if settings.tops_file else None
-    if settings.survey_dir:
-        check_survey_dir(settings.survey_dir)
+    tops = read_tops(settings.input.tops_file) if settings.input.tops_file else None
+    if settings.input.survey_dir:
+        check_survey_dir(settings.input.survey_dir)
     write_settings(out / SETTINGS_FILE_NAME, settings)
     taken: set[str] = set()
     folders = [folder_name(f, taken) for f in files]

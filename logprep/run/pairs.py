@@ -85,8 +85,8 @@ def pair_sheet(fw, hw, shift_m: float, windows: pd.DataFrame, grid, settings, ti
     ax_h.tick_params(labelleft=False)
     ax_f.set_ylabel(f"Footwall depth (m, {fw.depth_reference})")
     windows = windows.assign(self_juxtaposed=False)
-    im = draw_field(ax_t, grid, threshold_pct=settings.sgr_threshold_pct,
-                    throw_max_m=settings.throw_max_m, windows=windows, hw_shift_m=shift_m)
+    im = draw_field(ax_t, grid, threshold_pct=settings.capacity.sgr_threshold_pct,
+                    throw_max_m=settings.field.throw_max_m, windows=windows, hw_shift_m=shift_m)
     draw_sgr_colourbar(ax_t, im)
     ax_t.tick_params(labelleft=False)
     ax_t.set_xlabel("Throw of the tie horizon (m); normal fault, hanging wall down")
@@ -123,14 +123,14 @@ def screen_pairs(
     out = Path(out_dir)
     pairs = read_pairs(pairs_file)
     files = find_las_files(paths)
-    tops = read_tops(settings.tops_file) if settings.tops_file else None
+    tops = read_tops(settings.input.tops_file) if settings.input.tops_file else None
     names: dict[Path, str] = {}
     cache: dict[Path, object] = {}
     taken: set[str] = set()
     rows = []
     for p in pairs.itertuples():
         row = {"footwall": p.footwall, "hangingwall": p.hangingwall, "marker": p.marker,
-               "shift_m": "", "slip_source": settings.pair_slip_source, "status": "ok",
+               "shift_m": "", "slip_source": settings.field.pair_slip_source, "status": "ok",
                "message": "", "sand_sand_windows": "", "min_window_sgr_pct": "", "folder": ""}
         try:
             if not names:
@@ -148,12 +148,12 @@ def screen_pairs(
                 shift = marker_shift_m(fw.tops, hw.tops, p.marker, p.footwall, p.hangingwall)
             else:
                 shift = parse_number(p.shift_m)
-            windows = two_well_windows(fw.layers, hw.layers, shift, settings.throw_max_m,
-                                       settings.pair_slip_source)
-            step = settings.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
-            grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=settings.throw_max_m,
-                                  throw_step_m=settings.field_throw_step_m, depth_step_m=step,
-                                  slip_source=settings.pair_slip_source)
+            windows = two_well_windows(fw.layers, hw.layers, shift, settings.field.throw_max_m,
+                                       settings.field.pair_slip_source)
+            step = settings.field.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
+            grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=settings.field.throw_max_m,
+                                  throw_step_m=settings.field.field_throw_step_m, depth_step_m=step,
+                                  slip_source=settings.field.pair_slip_source)
             title = f"Two-well screening: {fw.well.name} (footwall) / {hw.well.name} (hanging wall)"
             files_out = {"juxtapositions.csv": csv_bytes(windows), "sgr_field.npz": grid.npz_bytes()}
             if sheets:

@@ -30,7 +30,8 @@ from logprep.layers.blocking import block_with_boundaries, net_to_gross
 from logprep.errors import SettingsError
 from logprep.fault.juxtaposition import _sgr_extremes, cumulative_clay, sand_windows
 from logprep.model import Layers
-from logprep.run.pipeline import ScreenSettings, WellScreening, screen_file, screen_well
+from logprep.run.pipeline import WellScreening, screen_file, screen_well
+from logprep.run.settings import ScreenSettings
 
 DEFAULT_SAND_CUTOFFS = (0.20, 0.25, 0.30, 0.35, 0.40, 0.45, 0.50)
 DEFAULT_SHALE_CUTOFFS = (0.50, 0.55, 0.60, 0.65, 0.70, 0.75, 0.80)
@@ -197,14 +198,14 @@ def sweep_screening(
         (min_beds_m, "minimum beds")))
     if min(beds) < 0 or min(sands) < 0 or max(shales) > 1:
         raise SettingsError("sweep: cut-offs must lie in 0-1 and minimum beds be >= 0 m")
-    thr = s.sgr_threshold_pct
-    forced = result.tops["top_m"].to_numpy(float) if s.honour_tops and len(result.tops) else ()
+    thr = s.capacity.sgr_threshold_pct
+    forced = result.tops["top_m"].to_numpy(float) if s.layers.honour_tops and len(result.tops) else ()
     ref_all = result.windows
     ref = ref_all[~ref_all["self_juxtaposed"]].reset_index(drop=True)
     names = [f"w{k + 1}" for k in range(len(ref))]
     ref_verdict = ["leak" if x < thr else "seal" for x in ref["sgr_min_pct"]]
 
-    combos = [(s.sand_cutoff, s.shale_cutoff, s.min_bed_m)]
+    combos = [(s.layers.sand_cutoff, s.layers.shale_cutoff, s.layers.min_bed_m)]
     combos += [c for c in itertools.product(sands, shales, beds) if c[0] < c[1]]
     if len(combos) == 1:
         raise SettingsError(
@@ -215,10 +216,10 @@ def sweep_screening(
         if k == 0:
             layers, windows = result.layers, result.windows
         else:
-            kw = s.blocking_kwargs() | dict(sand_cutoff=sand, shale_cutoff=shale, min_bed_m=bed)
-            layers = block_with_boundaries(s.blocking, result.depth_m, result.vsh, forced,
+            kw = s.layers.blocking_kwargs() | dict(sand_cutoff=sand, shale_cutoff=shale, min_bed_m=bed)
+            layers = block_with_boundaries(s.layers.blocking, result.depth_m, result.vsh, forced,
                                            filled=result.filled, **kw)
-            windows = sand_windows(layers, s.throw_max_m)
+            windows = sand_windows(layers, s.field.throw_max_m)
         cross = windows[~windows["self_juxtaposed"]]
         verdicts = window_verdicts(ref, layers, windows, thr)
         leaking = cross[cross["sgr_min_pct"] < thr]
