@@ -22,7 +22,7 @@ import numpy as np
 
 from timing import best_time_s
 
-from logprep.layers.blocking import block_cutoff, sample_edges_m
+from logprep.layers.blocking import block_cutoff
 from logprep.fault.juxtaposition import cumulative_clay
 from logprep.fault.sgr import cumulative_clay_curve, sgr_field_pct, throw_axis_m
 
@@ -77,7 +77,7 @@ def main() -> None:
         out.fill(0.0)
 
     t_floor = best(floor)
-    del grid, out
+    grid = out = None  # free the floor arrays before the kernel runs
     t_curve = best(lambda: sgr_field_pct(bounds, clay, STEP_M, throw))
     t_layers = best(lambda: sgr_field_pct(lb, lc, STEP_M, throw))
 

@@ -9,7 +9,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field
 from types import MappingProxyType
-from typing import Mapping
+from collections.abc import Mapping
 
 import numpy as np
 import pandas as pd

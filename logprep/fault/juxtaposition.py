@@ -23,7 +23,7 @@ import itertools
 import numpy as np
 import pandas as pd
 
-from logprep.model import LITHOLOGIES, Layers
+from logprep.model import Layers
 
 JUXTAPOSITION_CLASSES: dict[int, str] = {
     0: "outside",

@@ -11,7 +11,7 @@ from matplotlib.figure import Figure
 
 from logprep.fault.capacity import window_columns_m, window_throws
 from logprep.fault.envelope import envelope_c, fault_zone_pressure_bar, column_height_m
-from logprep.report.sheet import INK, PAGE_SIZE_IN, draw_footer, riskiest_windows
+from logprep.report.draw import PAGE_SIZE_IN, draw_footer, riskiest_windows
 from logprep.units import M_PER_FT
 
 N_CURVES = 8
@@ -87,7 +87,7 @@ def _density_note(result) -> str:
             f"{', '.join(f'{b:g}' for b in s.capacity.envelope_class_bounds_m)} m.")
 
 
-def seal_capacity_page(result) -> Figure:
+def seal_capacity_page(result) -> list[Figure]:
     """Page 2: column heights against throw for the riskiest windows (numbers as on page 1)."""
     s = result.settings
     fig = Figure(figsize=PAGE_SIZE_IN)
@@ -113,4 +113,4 @@ def seal_capacity_page(result) -> Figure:
     fig.text(0.015, 0.26, textwrap.fill("CAUTION (seal capacity): " + CAPACITY_CAUTION, 190),
              fontsize=9, va="top", color="#7A1F00", linespacing=1.5)
     draw_footer(fig, result)
-    return fig
+    return [fig]

@@ -1,6 +1,6 @@
 """Sheet page with the shale smear indicators over the triangle diagram (SSF and CSP).
 
-Registered in :data:`logprep.report.sheet.EXTRA_PAGES`.  Colours: perceptually uniform matplotlib
+Registered in :data:`logprep.report.sheet.PAGES`.  Colours: perceptually uniform matplotlib
 maps (viridis) and the Okabe & Ito (2008) vermillion for the sand-sand windows.
 """
 
@@ -13,6 +13,9 @@ from matplotlib.figure import Figure
 
 from logprep.fault.sgr import contact_polygon
 from logprep.fault.smear import SSF_INCOMPLETE
+from logprep.report.draw import (
+    INK, MAX_DRAWN_ROWS, NO_DATA, PAGE_SIZE_IN, WINDOW_INK, draw_contours, draw_footer, field_ylim,
+)
 
 SSF_RANGE = (0.0, 2 * SSF_INCOMPLETE)
 SSF_CONTOURS = (4.0, SSF_INCOMPLETE)
@@ -31,7 +34,6 @@ def _outline_windows(ax, windows, throw_max_m, ink):
 
 
 def _image(ax, grid, values, cmap, norm):
-    from logprep.report.sheet import MAX_DRAWN_ROWS, NO_DATA, field_ylim
 
     step = max(1, int(np.ceil(grid.depth_m.size / MAX_DRAWN_ROWS)))
     depth, throw = grid.depth_m[::step], grid.throw_m
@@ -49,7 +51,6 @@ def _image(ax, grid, values, cmap, norm):
 
 def smear_page(result) -> list[Figure]:
     """SSF and CSP fields of the well, sand-sand windows outlined."""
-    from logprep.report.sheet import INK, PAGE_SIZE_IN, WINDOW_INK, draw_contours, draw_footer
 
     grid = result.grid
     if grid is None or "ssf" not in grid.extra:

@@ -11,7 +11,7 @@ folder with ``juxtapositions.csv``, ``sgr_field.npz``, ``sheet.pdf`` and ``sheet
 from __future__ import annotations
 
 from pathlib import Path
-from typing import Callable, Iterable
+from collections.abc import Callable, Iterable
 
 import numpy as np
 import pandas as pd
@@ -67,7 +67,7 @@ def pair_sheet(fw, hw, shift_m: float, windows: pd.DataFrame, grid, settings, ti
     from matplotlib.patches import Patch
 
     from logprep.report.caution import CAUTION
-    from logprep.report.sheet import (LITHOLOGY_COLOURS, PAGE_SIZE_IN, draw_field, draw_sgr_colourbar)
+    from logprep.report.draw import (LITHOLOGY_COLOURS, PAGE_SIZE_IN, draw_field, draw_sgr_colourbar)
 
     fig = Figure(figsize=PAGE_SIZE_IN)
     fig.suptitle(title, x=0.015, ha="left", fontsize=14, fontweight="bold")

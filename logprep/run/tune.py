@@ -31,6 +31,9 @@ from logprep.errors import SettingsError
 from logprep.fault.juxtaposition import _sgr_extremes, cumulative_clay, sand_windows
 from logprep.model import Layers
 from logprep.run.pipeline import WellScreening, screen_file, screen_well
+from logprep.report.tune_figure import sweep_figure
+from logprep.report.writers import csv_bytes, pdf_bytes, png_bytes, write_bytes_atomic
+from logprep.run.config import SETTINGS_FILE_NAME, settings_toml
 from logprep.run.settings import ScreenSettings
 
 DEFAULT_SAND_CUTOFFS = (0.20, 0.25, 0.30, 0.35, 0.40, 0.45, 0.50)
@@ -290,11 +293,7 @@ def write_sweep(sweep: Sweep, out_dir: str | Path) -> dict[str, Path]:
     """Write ``tune.csv`` (the table), ``tune-windows.csv``, ``tune.pdf`` and ``tune.png``
     (the one-page figure) and ``logprep-settings.toml`` (the reference settings and the
     ranges) into ``out_dir``, each atomically.  Returns the paths by file name."""
-    from logprep.run.config import SETTINGS_FILE_NAME, settings_toml
-    from logprep.report.writers import csv_bytes, pdf_bytes, png_bytes, write_bytes_atomic
-    from logprep.report.tune_figure import sweep_figure
-
-    fig = sweep_figure(sweep)
+    fig = sweep_figure(sweep, stable_settings(sweep))
     files = {
         "tune.csv": csv_bytes(sweep.table),
         "tune-windows.csv": csv_bytes(sweep.windows),
