@@ -60,16 +60,14 @@ def dask_client(scheduler: str | None = None, local_workers: int | None = None):
 
 def run_on_dask(fn: Callable, tasks: Sequence[tuple], shared: tuple = (), *,
                 scheduler: str | None = None, local_workers: int | None = None,
-                client=None) -> Iterator[tuple[int, object]]:
+                client=None, lost: Callable[[str], object] = str) -> Iterator[tuple[int, object]]:
     """As :func:`logprep.run.executor.run_tasks` on a Dask cluster: yields ``(i, result)``
-    as tasks finish; a task whose workers died (``KilledWorker``) yields
-    :class:`~logprep.run.executor.TaskLost`."""
-    from logprep.run.executor import TaskLost
-
+    as tasks finish; a task whose workers died (``KilledWorker``) yields ``lost(message)``
+    (the executor passes its :class:`~logprep.run.executor.TaskLost`)."""
     distributed = _distributed()
     if client is None:
         with dask_client(scheduler, local_workers) as c:
-            yield from run_on_dask(fn, tasks, shared, client=c)
+            yield from run_on_dask(fn, tasks, shared, client=c, lost=lost)
         return
     if not tasks:
         return
@@ -81,7 +79,7 @@ def run_on_dask(fn: Callable, tasks: Sequence[tuple], shared: tuple = (), *,
         try:
             result = fut.result()
         except distributed.KilledWorker:
-            result = TaskLost("the Dask workers running this task stopped (killed, or out of "
+            result = lost("the Dask workers running this task stopped (killed, or out of "
                               "memory); run it alone or give the workers more memory")
         except (OSError, TimeoutError) as exc:
             raise LogprepError(f"lost the connection to the Dask cluster ({exc})") from None

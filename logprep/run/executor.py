@@ -91,7 +91,7 @@ def run_tasks(fn: Callable, tasks: Sequence[tuple], backend: Backend = Backend()
         from logprep.run.dask_runner import run_on_dask
 
         yield from run_on_dask(fn, tasks, shared, scheduler=backend.scheduler,
-                               local_workers=backend.dask_local)
+                               local_workers=backend.dask_local, lost=TaskLost)
     elif backend.jobs == 1 or len(tasks) <= 1:
         for i, task in enumerate(tasks):
             yield i, fn(*shared, *task)

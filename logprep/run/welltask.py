@@ -81,16 +81,16 @@ def screen_well_task(settings, tops, options: OutputOptions, given: str, readabl
     :class:`~logprep.errors.LogprepError` becomes a row with ``status`` ``error`` and no
     files; any other exception is a bug and propagates.
     """
-    from logprep.lasread import read_well
-    from logprep.outputs import pdf_bytes, png_bytes, render_well
-    from logprep.pipeline import screen_well
+    from logprep.io.las import read_well
+    from logprep.report.writers import pdf_bytes, png_bytes, render_well
+    from logprep.run.pipeline import screen_well
 
     row = summary_row(folder, given)
     t: dict[str, float] = dict.fromkeys(STAGES, 0.0)
     worker = f"{socket.gethostname()}:{os.getpid()}"
     t0 = time.perf_counter()
     try:
-        well = read_well(readable, gr_curve=settings.gr_curve, depth_unit=settings.depth_unit)
+        well = read_well(readable, gr_curve=settings.input.gr_curve, depth_unit=settings.input.depth_unit)
         well = replace(well, source=given)
         t1 = time.perf_counter()
         result = screen_well(well, settings, tops=tops)
@@ -98,7 +98,7 @@ def screen_well_task(settings, tops, options: OutputOptions, given: str, readabl
         files = render_well(result, None, field=options.field, field_smear=options.field_smear)
         t3 = time.perf_counter()
         if options.sheets:
-            from logprep.sheet import build_sheet
+            from logprep.report.sheet import build_sheet
 
             pages = build_sheet(result)
             files["sheet.pdf"] = pdf_bytes(pages)

@@ -11,22 +11,16 @@ folder with ``juxtapositions.csv``, ``sgr_field.npz``, ``sheet.pdf`` and ``sheet
 from __future__ import annotations
 
 from pathlib import Path
-from typing import Callable, Iterable
+from collections.abc import Callable, Iterable
 
 import numpy as np
 import pandas as pd
 
-from logprep.csvtable import parse_number, read_csv_table
+from logprep.io.csvtable import parse_number, read_csv_table
 from logprep.errors import LogprepError
-from logprep.outputs import (
-    csv_bytes,
-    folder_name,
-    pdf_bytes,
-    png_bytes,
-    write_bytes_atomic,
-)
-from logprep.tops import well_key
-from logprep.twowell import PairError, marker_shift_m, two_well_field, two_well_windows
+from logprep.fault.twowell import PairError, marker_shift_m, two_well_field, two_well_windows
+from logprep.io.tops import well_key
+from logprep.report.writers import csv_bytes, folder_name, pdf_bytes, png_bytes, write_bytes_atomic
 
 PAIRS_SUMMARY_COLUMNS = ["footwall", "hangingwall", "marker", "shift_m", "slip_source", "status",
                          "message", "sand_sand_windows", "min_window_sgr_pct", "folder"]
@@ -72,13 +66,8 @@ def pair_sheet(fw, hw, shift_m: float, windows: pd.DataFrame, grid, settings, ti
     from matplotlib.figure import Figure
     from matplotlib.patches import Patch
 
-    from logprep.caution import CAUTION
-    from logprep.sheet import (
-        LITHOLOGY_COLOURS,
-        PAGE_SIZE_IN,
-        draw_field,
-        draw_sgr_colourbar,
-    )
+    from logprep.report.caution import CAUTION
+    from logprep.report.draw import LITHOLOGY_COLOURS, PAGE_SIZE_IN, draw_field, draw_sgr_colourbar
 
     fig = Figure(figsize=PAGE_SIZE_IN)
     fig.suptitle(title, x=0.015, ha="left", fontsize=14, fontweight="bold")
@@ -96,8 +85,8 @@ def pair_sheet(fw, hw, shift_m: float, windows: pd.DataFrame, grid, settings, ti
     ax_h.tick_params(labelleft=False)
     ax_f.set_ylabel(f"Footwall depth (m, {fw.depth_reference})")
     windows = windows.assign(self_juxtaposed=False)
-    im = draw_field(ax_t, grid, threshold_pct=settings.sgr_threshold_pct,
-                    throw_max_m=settings.throw_max_m, windows=windows, hw_shift_m=shift_m)
+    im = draw_field(ax_t, grid, threshold_pct=settings.capacity.sgr_threshold_pct,
+                    throw_max_m=settings.field.throw_max_m, windows=windows, hw_shift_m=shift_m)
     draw_sgr_colourbar(ax_t, im)
     ax_t.tick_params(labelleft=False)
     ax_t.set_xlabel("Throw of the tie horizon (m); normal fault, hanging wall down")
@@ -121,14 +110,14 @@ def pair_task(settings, tops, options, pair: dict, fw_file: tuple[str, str],
     files as bytes (None on a :class:`LogprepError`, with ``status`` ``error``)."""
     from dataclasses import replace
 
-    from logprep.lasread import read_well
-    from logprep.pipeline import screen_well
+    from logprep.io.las import read_well
+    from logprep.run.pipeline import screen_well
 
     row = {"shift_m": "", "status": "ok", "message": "", "sand_sand_windows": "",
            "min_window_sgr_pct": ""}
     try:
-        fw, hw = (screen_well(replace(read_well(readable, gr_curve=settings.gr_curve,
-                                                depth_unit=settings.depth_unit), source=given),
+        fw, hw = (screen_well(replace(read_well(readable, gr_curve=settings.input.gr_curve,
+                                                depth_unit=settings.input.depth_unit), source=given),
                               settings, tops=tops)
                   for given, readable in (fw_file, hw_file))
         if pair["marker"]:
@@ -138,12 +127,12 @@ def pair_task(settings, tops, options, pair: dict, fw_file: tuple[str, str],
                                    pair["hangingwall"])
         else:
             shift = parse_number(pair["shift_m"])
-        windows = two_well_windows(fw.layers, hw.layers, shift, settings.throw_max_m,
-                                   settings.pair_slip_source)
-        step = settings.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
-        grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=settings.throw_max_m,
-                              throw_step_m=settings.field_throw_step_m, depth_step_m=step,
-                              slip_source=settings.pair_slip_source)
+        windows = two_well_windows(fw.layers, hw.layers, shift, settings.field.throw_max_m,
+                                   settings.field.pair_slip_source)
+        step = settings.field.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
+        grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=settings.field.throw_max_m,
+                              throw_step_m=settings.field.field_throw_step_m, depth_step_m=step,
+                              slip_source=settings.field.pair_slip_source)
         title = f"Two-well screening: {fw.well.name} (footwall) / {hw.well.name} (hanging wall)"
         files = {"juxtapositions.csv": csv_bytes(windows)}
         if options.field:
@@ -179,24 +168,24 @@ def screen_pairs(
     (``sheets=False``: no ``sheet.pdf``/``sheet.png``; ``field``/``field_smear`` as for
     wells).  One task per pair on ``backend`` (a :class:`logprep.run.executor.Backend`).
     Returns the summary rows."""
-    from logprep.batch import find_las_files
-    from logprep.lasread import read_well_name
+    from logprep.io.las import read_well_name
+    from logprep.io.tops import read_tops
+    from logprep.run.batch import find_las_files
     from logprep.run.executor import Backend, TaskLost, run_tasks
     from logprep.run.manifest import readable_path
     from logprep.run.store import commit_folder
     from logprep.run.welltask import OutputOptions
-    from logprep.tops import read_tops
 
     out = Path(out_dir)
     pairs = read_pairs(pairs_file)
     files = find_las_files(paths)
-    tops = read_tops(settings.tops_file) if settings.tops_file else None
+    tops = read_tops(settings.input.tops_file) if settings.input.tops_file else None
     names = {f: read_well_name(f) for f in files} if len(pairs) else {}
     taken: set[str] = set()
     rows, tasks, where = [], [], []
     for p in pairs.itertuples():
         row = {"footwall": p.footwall, "hangingwall": p.hangingwall, "marker": p.marker,
-               "shift_m": "", "slip_source": settings.pair_slip_source, "status": "ok",
+               "shift_m": "", "slip_source": settings.field.pair_slip_source, "status": "ok",
                "message": "", "sand_sand_windows": "", "min_window_sgr_pct": "", "folder": ""}
         rows.append(row)
         try:
@@ -210,8 +199,8 @@ def screen_pairs(
         tasks.append((pair, (str(fw_f), readable_path(fw_f)), (str(hw_f), readable_path(hw_f))))
         where.append((len(rows) - 1, folder))
     options = OutputOptions(sheets=sheets, field=field, field_smear=field_smear)
-    worker_settings = settings.updated(survey_dir=readable_path(settings.survey_dir)) \
-        if settings.survey_dir else settings
+    worker_settings = settings.updated(survey_dir=readable_path(settings.input.survey_dir)) \
+        if settings.input.survey_dir else settings
     try:
         for k, outcome in run_tasks(pair_task, tasks, backend or Backend(),
                                     shared=(worker_settings, tops, options)):

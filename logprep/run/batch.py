@@ -15,10 +15,11 @@ from dataclasses import dataclass, field
 from pathlib import Path
 
 from logprep import __version__
-from logprep.config import SETTINGS_FILE_NAME, write_settings
 from logprep.errors import LogprepError
-from logprep.outputs import folder_name, prepare_out_dir, write_summary
-from logprep.pipeline import ScreenSettings
+from logprep.io.survey import check_survey_dir
+from logprep.io.tops import read_tops
+from logprep.report.writers import folder_name, prepare_out_dir, write_summary
+from logprep.run.config import SETTINGS_FILE_NAME, write_settings
 from logprep.run.executor import Backend, TaskLost, run_tasks
 from logprep.run.manifest import (
     Manifest,
@@ -28,6 +29,7 @@ from logprep.run.manifest import (
     tree_sha256,
 )
 from logprep.run.progress import Progress
+from logprep.run.settings import ScreenSettings
 from logprep.run.store import clean_leftovers, commit_folder, mark_folder
 from logprep.run.welltask import (
     OutputOptions,
@@ -35,8 +37,6 @@ from logprep.run.welltask import (
     screen_well_task,
     summary_row,
 )
-from logprep.survey import check_survey_dir
-from logprep.tops import read_tops
 
 SUMMARY_EVERY_S = 2.0
 """``summary.csv`` is rewritten at most this often during a run (and always at its end)."""
@@ -99,7 +99,7 @@ def run_settings_sha256(settings: ScreenSettings, options: OutputOptions) -> str
     survey files."""
     return settings_sha256(settings.to_dict(), {
         "logprep": __version__, "outputs": options.to_dict(),
-        "tops": tree_sha256(settings.tops_file), "surveys": tree_sha256(settings.survey_dir)})
+        "tops": tree_sha256(settings.input.tops_file), "surveys": tree_sha256(settings.input.survey_dir)})
 
 
 def pending_row(folder: str, given: str) -> dict:
@@ -124,12 +124,12 @@ def screen_paths(
 ) -> BatchReport:
     """Screen every LAS file under ``paths`` and write results below ``out_dir``.
 
-    Each file gets its own folder (see :func:`logprep.outputs.folder_name`) holding
+    Each file gets its own folder (see :func:`logprep.report.writers.folder_name`) holding
     ``layers.csv``, ``juxtapositions.csv``, ``sgr_field.npz``, ``sheet.pdf``, ``sheet.png``
     and the other per-well files; ``out_dir/summary.csv`` lists every file in input order
     with ``status`` ``ok``, ``error`` or (while the run goes on, or after it was killed)
     ``pending``; ``out_dir/logprep-settings.toml`` holds the settings used (see
-    :mod:`logprep.config`) and ``out_dir/logprep-manifest.jsonl`` what each folder was made
+    :mod:`logprep.run.config`) and ``out_dir/logprep-manifest.jsonl`` what each folder was made
     from.  Wells unchanged since the last run on ``out_dir`` are skipped unless ``force``.
 
     A :class:`LogprepError` for one file is recorded (and passed to ``on_error``) and the
@@ -147,9 +147,9 @@ def screen_paths(
     # inputs shared by every well are checked once, before any well is screened
     prepare_out_dir(out)
     clean_leftovers(out)
-    tops = read_tops(settings.tops_file) if settings.tops_file else None
-    if settings.survey_dir:
-        check_survey_dir(settings.survey_dir)
+    tops = read_tops(settings.input.tops_file) if settings.input.tops_file else None
+    if settings.input.survey_dir:
+        check_survey_dir(settings.input.survey_dir)
     options = OutputOptions(sheets=sheets, field=field, field_smear=field_smear)
     run_sha = run_settings_sha256(settings, options)
     taken: set[str] = set()
@@ -181,8 +181,8 @@ def screen_paths(
         progress.start(len(files), report.skipped)
         # workers read by absolute path (their working folder may differ) but name the
         # file as given; the survey folder likewise
-        worker_settings = settings.updated(survey_dir=readable_path(settings.survey_dir)) \
-            if settings.survey_dir else settings
+        worker_settings = settings.updated(survey_dir=readable_path(settings.input.survey_dir)) \
+            if settings.input.survey_dir else settings
         tasks = [(given[i], readable_path(files[i]), folders[i]) for i in todo]
         last = time.monotonic()
         try:
