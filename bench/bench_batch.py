@@ -40,9 +40,9 @@ def main() -> None:
     science = best_of(args.repeat, lambda: [screen_file(f, settings) for f in files]) / n
     with tempfile.TemporaryDirectory() as tmp:
         tables = best_of(args.repeat, lambda: screen_paths(
-            [demo], Path(tmp) / "t", settings, sheets=False)) / n
-        full = best_of(1, lambda: screen_paths([demo], Path(tmp) / "f", settings)) / n
-        full2 = best_of(1, lambda: screen_paths([demo], Path(tmp) / "j", settings, jobs=2)) / n
+            [demo], Path(tmp) / "t", settings, sheets=False, force=True)) / n
+        full = best_of(1, lambda: screen_paths([demo], Path(tmp) / "f", settings, force=True)) / n
+        full2 = best_of(1, lambda: screen_paths([demo], Path(tmp) / "j", settings, jobs=2, force=True)) / n
 
     print(f"{n} example wells; seconds per well and ratio to the lasio read baseline")
     rows = [

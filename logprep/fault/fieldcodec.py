@@ -67,7 +67,7 @@ def decode_sgr_pct(stored, step_pct: float = SGR_STEP_PCT, null: int = SGR_NULL)
     return out
 
 
-def npz_bytes(arrays: dict[str, np.ndarray], compresslevel: int = 9) -> bytes:
+def npz_bytes(arrays: dict[str, np.ndarray], compresslevel: int = 6) -> bytes:
     """A ``.npz`` archive (deflate) of ``arrays`` whose bytes depend only on the arrays:
     members in the given order, each with a fixed date."""
     buf = io.BytesIO()

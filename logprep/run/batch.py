@@ -196,7 +196,9 @@ def screen_paths(
                     row = outcome.row
                     report.outcomes[folders[i]] = outcome
                     if outcome.files is not None:
+                        t0 = time.perf_counter()
                         sums = commit_folder(out, folders[i], outcome.files)
+                        outcome.timings_s["writing"] = time.perf_counter() - t0
                         manifest.record(folders[i], source=given[i], input_sha=inputs[i],
                                         settings_sha=run_sha, outputs=sums, row=row,
                                         sizes={n: len(b) for n, b in outcome.files.items()})
