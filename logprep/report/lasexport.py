@@ -78,7 +78,7 @@ def las_bytes(result) -> bytes:
     step = depth[1] - depth[0] if depth.size > 1 else 0.0
     buf = io.StringIO()
     las.write(buf, version=2.0, wrap=False, fmt="%.5f", len_numeric_field=-1,
-              STRT="%.5f" % depth[0], STOP="%.5f" % depth[-1], STEP="%.5f" % step)
+              STRT=f"{depth[0]:.5f}", STOP=f"{depth[-1]:.5f}", STEP=f"{step:.5f}")
     head = buf.getvalue()
     head = head[: head.index("\n", head.index("~A")) + 1]
     return (head + data_section(columns)).encode()
