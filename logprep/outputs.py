@@ -25,13 +25,33 @@ SUMMARY_COLUMNS = ["well", "source", "status", "message", "layers", "sand_sand_w
                    "min_window_sgr_pct", "folder"]
 
 
+def current_umask() -> int:
+    """The process's file-mode creation mask, read without changing it where the system
+    says it (Linux ``/proc/self/status``); elsewhere set and restored at once."""
+    try:
+        with open("/proc/self/status", encoding="ascii") as f:
+            for line in f:
+                if line.startswith("Umask:"):
+                    return int(line.split()[1], 8)
+    except (OSError, ValueError, IndexError):
+        pass
+    mask = os.umask(0o022)
+    os.umask(mask)
+    return mask
+
+
 def write_bytes_atomic(path: Path, data: bytes) -> None:
-    """Write ``data`` to ``path`` through a temporary file in the same folder."""
+    """Write ``data`` to ``path`` through a temporary file in the same folder.
+
+    The file gets the mode a plain ``open(path, "w")`` would give (``0o666`` less the
+    umask: 0644 under the usual 022), not the owner-only mode of a temporary file, so
+    colleagues can read results on a shared drive."""
     path = Path(path)
     try:
         path.parent.mkdir(parents=True, exist_ok=True)
         fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=path.parent)
         try:
+            os.fchmod(fd, 0o666 & ~current_umask())
             with os.fdopen(fd, "wb") as f:
                 f.write(data)
             os.replace(tmp, path)
