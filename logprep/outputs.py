@@ -111,7 +111,8 @@ def png_bytes(figure, dpi: int = 110) -> bytes:
 
 _UNSAFE = re.compile(r"[^A-Za-z0-9._-]+")
 
-RESERVED_NAMES = ("summary.csv", "pairs_summary.csv", "logprep-settings.toml")
+RESERVED_NAMES = ("summary.csv", "pairs_summary.csv", "logprep-settings.toml", "overview.html",
+                  "overview.pdf")
 """Files a run writes at the top of its output folder: no well folder may take their name."""
 
 
@@ -156,7 +157,14 @@ def render_well(result, sheet_builder=None) -> dict[str, bytes]:
         files["sheet.pdf"] = pdf_bytes(pages)
         files["sheet.png"] = png_bytes(pages[0])
     files["curves.las"] = las_bytes(result)
+    files["notes.txt"] = notes_bytes(result.notes)
     return files
+
+
+def notes_bytes(notes) -> bytes:
+    """The notes of a well (the sheet's ``Notes:`` line), one a line, as ``notes.txt``:
+    what was assumed, left out or converted.  The field overview lists them per well."""
+    return "".join(f"{n}\n" for n in notes if n).encode("utf-8")
 
 
 def write_well(files: dict[str, bytes], well_dir: Path) -> None:

@@ -1,0 +1,1 @@
+"""Reading inputs: LAS logs, tops, surveys, CSV tables, well locations."""
