@@ -16,11 +16,10 @@ from pathlib import Path
 
 import lasio
 import numpy as np
-from timing import best_time_s
-
 from logprep.io.examples import example_logs_dir
 from logprep.run.batch import screen_one
 from logprep.run.pipeline import ScreenSettings
+from timing import best_time_s
 
 
 def big_well(path: Path, n: int = 20_000, step_m: float = 0.1524, seed: int = 7) -> Path:
@@ -78,7 +77,7 @@ def main() -> None:
             big = big_well(out / "BENCH-BIG.las")
             plain = ScreenSettings()
             t, s, row = ratio(big, plain, None, max(1, args.repeat - 1), out)
-            n_rows = sum(1 for _ in open(out / "s" / "juxtapositions.csv")) - 1
+            n_rows = len((out / "s" / "juxtapositions.csv").read_text().splitlines()) - 1
             pages = (out / "s" / "sheet.pdf").read_bytes().count(b"/Type /Page\n")
             print(f"  20,000 samples: tables {t:6.2f}  sheet {s:6.2f}  ratio {s / t:5.2f} "
                   f"(target <= 3; {row['sand_sand_windows']} windows between different sands, "

@@ -4,7 +4,12 @@ import numpy as np
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from logprep.report.layout import nice_ceiling, robust_upper, spread_positions, wrap_to_width
+from logprep.report.layout import (
+    nice_ceiling,
+    robust_upper,
+    spread_positions,
+    wrap_to_width,
+)
 
 
 def test_nice_ceiling():
