@@ -128,9 +128,20 @@ def folder_name(source: str | Path, taken: set[str]) -> str:
     return name
 
 
+def with_window_numbers(windows: pd.DataFrame) -> pd.DataFrame:
+    """The windows with a ``window`` column (1, 2, ... in row order) right after the
+    contract columns: the number each window carries on the sheet, in ``logprep tune``
+    (``w<k>``) and in the notebook."""
+    out = windows.reset_index(drop=True)
+    out = out.drop(columns=["window"], errors="ignore")
+    at = min(len(WINDOW_COLUMNS), len(out.columns))
+    out.insert(at, "window", range(1, len(out) + 1))
+    return out
+
+
 def well_tables(result) -> dict[str, pd.DataFrame]:
     """The machine-readable tables of one well, by file name."""
-    windows = result.windows.copy()
+    windows = with_window_numbers(result.windows)
     extra = [c for c in windows.columns if c not in WINDOW_COLUMNS]
     layers = result.layers.to_frame()
     layers["tst_m"] = true_stratigraphic_thickness_m(layers["thickness_m"], result.settings.bed_dip_deg)
