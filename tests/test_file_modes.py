@@ -6,7 +6,7 @@ import stat
 
 import pytest
 
-from logprep.outputs import current_umask, write_bytes_atomic
+from logprep.report.writers import current_umask, write_bytes_atomic
 
 
 @pytest.fixture
@@ -46,7 +46,7 @@ def test_replacing_keeps_folder_clean_and_mode(tmp_path, umask):
 
 
 def test_batch_outputs_readable_by_group_and_others(tmp_path, umask, example_dir):
-    from logprep.batch import screen_paths
+    from logprep.run.batch import screen_paths
 
     umask(0o022)
     screen_paths([example_dir / "HRM-4.las"], tmp_path, sheets=False)

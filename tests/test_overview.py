@@ -10,7 +10,7 @@ import pytest
 from conftest import open_logs_path
 from layout_check import collisions, off_page, text_boxes
 
-from logprep.batch import screen_paths
+from logprep.run.batch import screen_paths
 from logprep.errors import LogprepError
 from logprep.io.locations import (
     GEOGRAPHIC,

@@ -17,12 +17,11 @@ from __future__ import annotations
 
 import math
 import re
-import warnings
 from collections.abc import Mapping
 from dataclasses import dataclass
 from pathlib import Path
 
-from logprep.csvtable import parse_number, read_csv_table
+from logprep.io.csvtable import parse_number, read_csv_table
 from logprep.errors import LogprepError
 
 GEOGRAPHIC, GRID = "degrees", "grid"
@@ -119,19 +118,9 @@ def header_location(header: Mapping[str, str]) -> Location | None:
 def las_header_location(path: str | Path) -> Location | None:
     """The location in a LAS file's header (read without its data), or None when the
     file cannot be read or names no location."""
-    import lasio
+    from logprep.io.las import read_well_header
 
-    from logprep.lasread import _bom_encoding
-
-    path = Path(path)
-    try:
-        with warnings.catch_warnings():
-            warnings.simplefilter("ignore")
-            las = lasio.read(str(path), ignore_data=True, encoding=_bom_encoding(path))
-    except Exception:  # noqa: BLE001 - lasio raises many types for unreadable input; a map point is optional
-        return None
-    header = {item.mnemonic: str(item.value) for item in las.well}
-    return header_location(header)
+    return header_location(read_well_header(path))
 
 
 def read_locations(path: str | Path) -> dict[str, Location]:

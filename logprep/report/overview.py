@@ -20,9 +20,9 @@ from pathlib import Path
 
 import pandas as pd
 
-from logprep.capacity import VERDICTS
+from logprep.fault.capacity import VERDICTS
 from logprep.io.locations import Location, las_header_location, read_locations
-from logprep.tops import well_key
+from logprep.io.tops import well_key
 
 WORST_ORDER = ("failed",) + VERDICTS + ("not judged", "no windows")
 """Worst-verdict classes of a row, worst first: a well that failed, then the window verdict
@@ -202,7 +202,7 @@ def verdict_rule(out_dir: str | Path) -> str:
 def write_overview(out_dir: str | Path, locations_file: str | Path | None = None) -> dict[str, Path]:
     """Write ``overview.html`` and ``overview.pdf`` into ``out_dir`` (atomically, as every
     output) from what the batch left there; returns their paths by name."""
-    from logprep.outputs import pdf_bytes, write_bytes_atomic
+    from logprep.report.writers import pdf_bytes, write_bytes_atomic
     from logprep.report.overview_html import overview_html
     from logprep.report.overview_page import overview_figure
 

@@ -13,8 +13,8 @@ import math
 from matplotlib.figure import Figure
 
 from logprep import __version__
-from logprep.capacity import VERDICTS
-from logprep.caution import CAUTION
+from logprep.fault.capacity import VERDICTS
+from logprep.report.caution import CAUTION
 from logprep.io.locations import GEOGRAPHIC, map_xy
 from logprep.report.overview import (
     WORST_ORDER,
