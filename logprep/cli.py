@@ -264,7 +264,7 @@ def cmd_screen(args) -> int:
         print(f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed; "
               f"summary {args.out}/pairs_summary.csv")
         failed = failed or bad > 0
-    from logprep.report.overview import write_overview
+    from logprep.report.overview_files import write_overview
 
     written = write_overview(args.out, args.locations)
     print(f"field overview {written['overview.html']} (open in a browser) and {written['overview.pdf']}")
@@ -274,7 +274,7 @@ def cmd_screen(args) -> int:
 def cmd_overview(args) -> int:
     from pathlib import Path
 
-    from logprep.report.overview import write_overview
+    from logprep.report.overview_files import write_overview
 
     out = Path(args.out_dir)
     if not (out / "summary.csv").is_file() and not (out / "pairs_summary.csv").is_file():

@@ -21,7 +21,8 @@ from logprep.io.locations import (
     parse_angle_deg,
     read_locations,
 )
-from logprep.report.overview import overview_rows, write_overview
+from logprep.report.overview import overview_rows
+from logprep.report.overview_files import write_overview
 from logprep.report.overview_html import overview_html, place_labels
 from logprep.report.overview_page import overview_figure
 

@@ -8,7 +8,8 @@ Well locations come from a locations file or the LAS headers (see
 :mod:`logprep.io.locations`).
 
 :func:`overview_rows` gathers one :class:`OverviewRow` per well and per pair;
-:mod:`logprep.report.overview_html` and :mod:`logprep.report.overview_page` draw them.
+:mod:`logprep.report.overview_html` and :mod:`logprep.report.overview_page` draw them and
+:func:`logprep.report.overview_files.write_overview` writes both files.
 """
 
 from __future__ import annotations
@@ -197,21 +198,3 @@ def verdict_rule(out_dir: str | Path) -> str:
         return ""
     return (f"window verdict from its lowest SGR: leak below {leak:g} %, uncertain from "
             f"{leak:g} % to below {seal:g} %, seal from {seal:g} %")
-
-
-def write_overview(out_dir: str | Path, locations_file: str | Path | None = None) -> dict[str, Path]:
-    """Write ``overview.html`` and ``overview.pdf`` into ``out_dir`` (atomically, as every
-    output) from what the batch left there; returns their paths by name."""
-    from logprep.report.writers import pdf_bytes, write_bytes_atomic
-    from logprep.report.overview_html import overview_html
-    from logprep.report.overview_page import overview_figure
-
-    out = Path(out_dir)
-    rows = overview_rows(out, locations_file)
-    rule = verdict_rule(out)
-    paths = {"overview.html": out / "overview.html", "overview.pdf": out / "overview.pdf"}
-    html = overview_html(rows, rule)
-    pdf = pdf_bytes([overview_figure(rows, rule)])
-    write_bytes_atomic(paths["overview.html"], html.encode("utf-8"))
-    write_bytes_atomic(paths["overview.pdf"], pdf)
-    return paths
