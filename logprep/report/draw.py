@@ -140,10 +140,11 @@ def draw_window_numbers(ax, polys: dict) -> None:
         ax.add_collection(LineCollection(leaders, colors=WINDOW_INK, linewidths=0.5, zorder=2.5))
 
 
-def draw_sgr_colourbar(ax, im, label="SGR (%); black lines: the contours drawn, bold the threshold"):
-    """A small horizontal colour bar above ``ax``; the field's contour levels (if drawn)
-    are marked on it and its ticks are the levels themselves."""
-    cax = ax.inset_axes([0.5, 1.015, 0.5, 0.018])
+def draw_sgr_colourbar(ax, im, label="SGR %; lines: contours"):
+    """A small horizontal colour bar above ``ax``, its label to its left; the field's
+    contour levels (if drawn) are marked on it and its ticks are the levels themselves."""
+    cax = ax.inset_axes([0.62, 1.015, 0.38, 0.018])
+    ax.text(0.61, 1.024, label, transform=ax.transAxes, ha="right", va="center", fontsize=6.5)
     cb = ax.figure.colorbar(im, cax=cax, orientation="horizontal")
     cs = getattr(im, "contours", None)
     if cs is not None:
@@ -151,8 +152,6 @@ def draw_sgr_colourbar(ax, im, label="SGR (%); black lines: the contours drawn, 
         cb.set_ticks([0, *cs.levels, 100])
     cb.ax.tick_params(labelsize=6, length=2, pad=1)
     cb.ax.xaxis.set_ticks_position("top")
-    cb.set_label(label, fontsize=6.5, labelpad=1)
-    cb.ax.xaxis.set_label_position("top")
     return cb
 
 

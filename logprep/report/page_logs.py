@@ -33,7 +33,7 @@ def draw_gr_track(ax, result) -> None:
     if clipped.any():
         ax.scatter(np.full(int(clipped.sum()), 0.995), result.depth_m[clipped], s=9, marker="4",
                    color=CLIPPED_INK, transform=ax.get_yaxis_transform(), clip_on=False,
-                   label=f"{int(clipped.sum())} readings > {gr_max:g} API (at the edge)")
+                   label=f"{int(clipped.sum())} > {gr_max:g} API, at edge")
     if result.gr_clean_line is not None:
         ax.plot(result.gr_clean_line, result.depth_m, color="#0072B2", ls="--", lw=1,
                 label="clean line per zone")
@@ -116,8 +116,8 @@ def draw_triangle(ax, result, labelled=()) -> None:
                     windows=result.windows, labelled=labelled)
     draw_sgr_colourbar(ax, im)
     ax.set_xlabel("Throw (m); normal fault, hanging wall down")
-    ax.set_title(f"Triangle diagram: SGR from {result.grid.source},\nsand-sand windows outlined",
-                 fontsize=8.5, loc="left", pad=4)
+    ax.text(0.0, 1.012, f"Triangle diagram: SGR from {result.grid.source},\nsand-sand windows outlined",
+            transform=ax.transAxes, fontsize=7.5, ha="left", va="bottom")
     ax.tick_params(labelleft=False)
 
 
@@ -167,7 +167,7 @@ def log_page(result) -> list[Figure]:
     fig.text(0.015, 0.975, f"Fault-seal screening: {result.well.name}", ha="left", va="top",
              fontsize=15, fontweight="bold", parse_math=False)
     has_tops = getattr(result, "tops", None) is not None and len(result.tops) > 0
-    gs = fig.add_gridspec(1, 5, left=0.045, right=0.985, top=0.905, bottom=0.2,
+    gs = fig.add_gridspec(1, 5, left=0.045, right=0.985, top=0.9, bottom=0.2,
                           width_ratios=[1.0, 1.0, 0.95 if has_tops else 0.45, 4.0, 3.6], wspace=0.1)
     ax_gr = fig.add_subplot(gs[0])
     ax_vsh = fig.add_subplot(gs[1], sharey=ax_gr)
