@@ -63,3 +63,31 @@ def test_gr_scale_is_robust_to_spikes():
     assert np.mean(gr <= hi) >= 0.995  # yet holds at least 99.5 % of the readings
     labels = [t.get_label() for t in ax_gr.collections]
     assert any("API, at edge" in lab for lab in labels)  # the clipped ones are marked
+
+
+def test_pair_sheet_is_complete_and_legible(example_dir):
+    # the bundled HRM-2 / HRM-3 pair tied on the Kellan Marker (example_logs/pairs.csv)
+    from logprep.fault.twowell import marker_shift_m, two_well_field
+    from logprep.report.pair_sheet import PairScreening, build_pair_sheet, tie_depth
+    from logprep.run.pairs import pair_windows
+
+    s = ScreenSettings(tops_file=str(example_dir / "tops.csv"))
+    fw = screen_file(example_dir / "HRM-2.las", s)
+    hw = screen_file(example_dir / "HRM-3.las", s)
+    shift = marker_shift_m(fw.tops, hw.tops, "Kellan Marker")
+    windows = pair_windows(fw, hw, shift, s)
+    assert set(windows["verdict"]) <= {"leak", "uncertain", "seal"} and windows["column_oil_m"].notna().all()
+    grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=300, throw_step_m=1, depth_step_m=0.5,
+                          slip_source="footwall")
+    pages = build_pair_sheet(PairScreening(fw, hw, shift, "Kellan Marker", windows, grid, s))
+    assert len(pages) == 3  # columns and triangle, window table with verdicts, seal capacity
+    assert_legible(pages, "HRM-2/HRM-3")
+    table_text = " ".join(t for t, _ in text_boxes(pages[1]))
+    for word in set(windows["verdict"]):
+        assert f" {word} " in table_text
+    assert "seal capacity" in " ".join(t for t, _ in text_boxes(pages[2]))
+    # the tie is drawn on both columns at the marker's footwall depth
+    tie = tie_depth(fw.tops, "Kellan Marker")
+    for ax in pages[0].axes[:2]:
+        ys = [ln.get_ydata()[0] for ln in ax.get_lines()]
+        assert any(abs(y - tie) < 1e-9 for y in ys)
