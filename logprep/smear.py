@@ -121,7 +121,8 @@ def smear_fields(layers: Layers, depth_m, throw_m, dtype=np.float32):
     return ssf.astype(dtype), csp.astype(dtype)
 
 
-def _window_extremes(layers: Layers, w, throw_max_m: float, n_edge: int) -> tuple[float, ...]:
+def _window_extremes(layers: Layers, w, throw_max_m: float, n_edge: int,
+                     shale: np.ndarray | None = None) -> tuple[float, ...]:
     """SSF and CSP extremes over one window's contact area.
 
     Inside a sand-sand contact area the beds that have passed are fixed (every layer
@@ -132,10 +133,11 @@ def _window_extremes(layers: Layers, w, throw_max_m: float, n_edge: int) -> tupl
     """
     fi, hi = int(w.footwall_layer), int(w.hangingwall_layer)
     lo_i, hi_i = min(fi, hi), max(fi, hi)
-    between = [i for i in source_beds(layers) if lo_i < i < hi_i]
-    if not between:
+    shale = source_beds(layers) if shale is None else shale  # sorted layer indices
+    between = shale[np.searchsorted(shale, lo_i, side="right"):np.searchsorted(shale, hi_i, side="left")]
+    if not between.size:
         return np.inf, np.inf, 0.0, 0.0
-    tmax = float(np.max(layers.thickness_m[between]))
+    tmax = float(np.max(layers.base_m[between] - layers.top_m[between]))
     ssf_min = float(w.throw_min_m) / tmax
     ssf_max = float(w.throw_max_m) / tmax
     poly = contact_polygon(w.footwall_top_m, w.footwall_base_m, w.hangingwall_top_m,
@@ -159,7 +161,8 @@ def window_smear(layers: Layers, windows: pd.DataFrame, throw_max_m: float,
     """Columns :data:`SMEAR_COLUMNS` for each row of ``windows`` (same index):
     ``ssf_min``/``ssf_max`` (inf where no source bed lies between the two sands, e.g. a
     sand against itself) and ``csp_min_m``/``csp_max_m`` (metres; 0 there)."""
-    rows = [_window_extremes(layers, w, throw_max_m, n_edge) for w in windows.itertuples()]
+    shale = source_beds(layers)  # once per well: the windows only look up their range
+    rows = [_window_extremes(layers, w, throw_max_m, n_edge, shale) for w in windows.itertuples()]
     return pd.DataFrame(rows, columns=SMEAR_COLUMNS, index=windows.index, dtype=float)
 
 
