@@ -25,10 +25,15 @@ import numpy as np
 from timing import best_time_s
 
 from logprep.blocking import block_with_boundaries, fill_gaps
-from logprep.endpoints import changepoint_bounds
+from logprep.endpoints import zone_bounds
 from logprep.juxtaposition import sand_windows
 from logprep.model import WellLog
-from logprep.pipeline import ScreenSettings, clay_volume, screen_well, seal_capacity_step
+from logprep.pipeline import (
+    ScreenSettings,
+    clay_volume,
+    screen_well,
+    seal_capacity_step,
+)
 from logprep.qc import gr_flags
 from logprep.sgr import sgr_field
 from logprep.smear import window_smear, with_smear_fields
@@ -40,7 +45,8 @@ def synthetic_well(n: int, seed: int = 11) -> WellLog:
     """A vertical well of ``n`` samples at 0.1524 m from 1000 m: a random succession of
     shale, silt, heterolith and sand beds (lognormal thickness, median 3 m), GR from the
     shale fraction through a 0.6 m Gaussian tool response plus noise, a GR baseline step
-    and a smaller bit size every 900 m, neutron and density from the same profile."""
+    every 900 m, a smaller bit size below 40 % of the interval, neutron and density from
+    the same profile."""
     rng = np.random.default_rng(seed)
     depth = 1000.0 + STEP_M * np.arange(n)
     length = n * STEP_M
@@ -64,7 +70,7 @@ def synthetic_well(n: int, seed: int = 11) -> WellLog:
     section = ((depth - depth[0]) // 900.0).astype(int)
     baseline = 12.0 * (section % 3)
     gr = 25.0 + baseline + vsh * 95.0 + rng.normal(0, 3.0, n)
-    bs = np.where(section % 2 == 0, 12.25, 8.5)
+    bs = np.where(depth < depth[0] + 0.4 * length, 12.25, 8.5)  # two hole sections
     cali = bs + np.abs(rng.normal(0, 0.15, n)) + np.where(vsh > 0.9, rng.uniform(0, 2.5, n) * (rng.random(n) < 0.05), 0)
     nphi = 0.08 + 0.27 * vsh + rng.normal(0, 0.01, n)
     rhob = 2.35 + 0.2 * vsh + rng.normal(0, 0.015, n)
@@ -82,12 +88,14 @@ def stage_times(well: WellLog, settings: ScreenSettings, repeat: int) -> dict[st
     t: dict[str, float] = {}
     depth, gr = well.depth_m, well.gr_api
     t["QC flags"] = best_time_s(lambda: gr_flags(depth, gr), repeat)
-    t["GR-baseline zoning"] = best_time_s(lambda: changepoint_bounds(
-        depth, gr, min_zone_m=settings.zone_min_m, min_step_api=settings.zone_step_api), repeat)
+    bs = well.curves["BS"]
+    t["GR-baseline zoning"] = best_time_s(lambda: zone_bounds(
+        depth, gr, "changepoint", bs_in=bs, min_zone_m=settings.zone_min_m,
+        min_step_api=settings.zone_step_api), repeat)
     t["clay volume (all)"] = best_time_s(lambda: clay_volume(well, settings), repeat)
     cv = clay_volume(well, settings)
     vsh, filled = fill_gaps(cv.depth_m, cv.vsh)
-    blk = lambda: block_with_boundaries(settings.blocking, cv.depth_m, vsh, (), filled=filled,  # noqa: E731
+    blk = lambda: block_with_boundaries(settings.blocking, cv.depth_m, vsh, (), filled=filled,
                                         **settings.blocking_kwargs())
     t["blocking"] = best_time_s(blk, repeat)
     layers = blk()

@@ -100,15 +100,32 @@ def smear_at(layers: Layers, depth_m, throw_m) -> tuple[np.ndarray, np.ndarray]:
 
 
 def smear_fields(layers: Layers, depth_m, throw_m, dtype=np.float32):
-    """SSF and CSP (m) on the grid ``depth_m`` (rows) x ``throw_m`` (columns).
+    """SSF and CSP (m) on the grid ``depth_m`` (rows, increasing) x ``throw_m`` (columns).
 
-    Work is limited to the rows a bed can reach (``z`` within the bed's top and base plus
-    the largest throw), so the cost is about (source beds) x (rows reached) x (throws).
+    A bed passes a point ``(z, t > 0)`` only for ``top < z < base + t``, so each bed is
+    worked on over the rows from its top to its base plus the largest throw and, row
+    block by row block, over the throws large enough to reach back to its base: about
+    the area where it has passed.  The work is therefore (cells) x (source beds a throw
+    spans), which is linear in the rows at a fixed throw range; CSP is a sum over the
+    passed beds, so it cannot be cheaper than that.  Values are those of
+    :func:`smear_at` point by point, bit for bit (the same terms added in the same bed
+    order).  Unsorted or negative throws take a plain per-bed pass over all throws.
     """
     z = np.asarray(depth_m, float)
     t = np.asarray(throw_m, float)
     tmax = np.zeros((z.size, t.size))
     csp = np.zeros((z.size, t.size))
+    if t.size and (t[0] < 0 or np.any(np.diff(t) <= 0)):
+        _smear_dense(layers, z, t, tmax, csp)
+    elif t.size and z.size:
+        _smear_staircase(layers, z, t, tmax, csp)
+    ssf = shale_smear_factor(t[None, :], tmax)
+    return ssf.astype(dtype), csp.astype(dtype)
+
+
+def _smear_dense(layers: Layers, z, t, tmax, csp) -> None:
+    """Every source bed over the rows it can reach (``z`` within its top and base plus
+    the largest throw) and every throw: the general case of :func:`smear_fields`."""
     reach = float(np.abs(t).max(initial=0.0))
     for i in source_beds(layers):
         top, base = layers.top_m[i], layers.base_m[i]
@@ -117,8 +134,46 @@ def smear_fields(layers: Layers, depth_m, throw_m, dtype=np.float32):
         passed, thick, term = _bed_terms(top, base, z[rows, None], t[None, :])
         np.maximum(tmax[rows], np.where(passed, thick, 0.0), out=tmax[rows])
         csp[rows] += np.where(passed, term, 0.0)
-    ssf = shale_smear_factor(t[None, :], tmax)
-    return ssf.astype(dtype), csp.astype(dtype)
+
+
+_SMEAR_BLOCK_CELLS = 1 << 16
+"""Cells of one row block of :func:`_smear_staircase` (fits a core's cache)."""
+
+
+def _smear_staircase(layers: Layers, z, t, tmax, csp) -> None:
+    """:func:`_smear_dense` for increasing throws >= 0, restricted to where a bed can
+    have passed: rows ``top < z < base + t_max``, throws ``t > z - base``.  The tests of
+    :func:`_bed_terms` still decide every point (the ranges are only made no narrower)."""
+    c0 = int(np.searchsorted(t, 0.0, side="right"))  # t = 0: nothing has passed
+    if c0 == t.size:
+        return
+    t_last = float(t[-1])
+    block = max(8, _SMEAR_BLOCK_CELLS // t.size)
+    for i in source_beds(layers):
+        top, base = layers.top_m[i], layers.base_m[i]
+        thick = base - top
+        mid = 0.5 * (top + base)
+        half = 0.5 * thick
+        sq = thick * thick
+        slack = 1e-9 * (1.0 + abs(base) + t_last)
+        ra = int(np.searchsorted(z, top, side="right"))  # first row with top < z
+        rb = int(np.searchsorted(z, base + t_last + slack, side="right"))
+        mid_t = mid + t
+        for r0 in range(ra, rb, block):
+            r1 = min(r0 + block, rb)
+            zc = z[r0:r1, None]
+            cs = max(c0, int(np.searchsorted(t, z[r0] - base - slack, side="left")))
+            # passed: top < z (every row here), base > z - t, t != 0 (every column here)
+            passed = base > zc - t[None, cs:]
+            inv_fw = 1.0 / np.maximum(np.abs(zc - mid), half)
+            buf = mid_t[None, cs:] - zc
+            np.abs(buf, out=buf)
+            np.maximum(buf, half, out=buf)
+            np.divide(1.0, buf, out=buf)
+            np.add(inv_fw, buf, out=buf)
+            np.multiply(sq, buf, out=buf)
+            np.add(csp[r0:r1, cs:], buf, out=csp[r0:r1, cs:], where=passed)
+            np.maximum(tmax[r0:r1, cs:], thick, out=tmax[r0:r1, cs:], where=passed)
 
 
 def _window_extremes(layers: Layers, w, throw_max_m: float, n_edge: int,
