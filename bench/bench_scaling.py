@@ -83,43 +83,55 @@ def synthetic_well(n: int, seed: int = 11) -> WellLog:
     )
 
 
-def stage_times(well: WellLog, settings: ScreenSettings, repeat: int) -> dict[str, float]:
-    """Best time (s) of each stage, each fed what the pipeline gives it."""
-    t: dict[str, float] = {}
-    depth, gr = well.depth_m, well.gr_api
-    t["QC flags"] = best_time_s(lambda: gr_flags(depth, gr), repeat)
-    bs = well.curves["BS"]
-    t["GR-baseline zoning"] = best_time_s(lambda: zone_bounds(
-        depth, gr, "changepoint", bs_in=bs, min_zone_m=settings.zone_min_m,
-        min_step_api=settings.zone_step_api), repeat)
-    t["clay volume (all)"] = best_time_s(lambda: clay_volume(well, settings), repeat)
+def interleaved_best(fns, repeat: int) -> list[float]:
+    """Best time (s) of each function, run in turn ``repeat`` times, so that a burst of
+    load on the shared machine hits every size alike."""
+    times = [[] for _ in fns]
+    for _ in range(repeat):
+        for fn, ts in zip(fns, times):
+            ts.append(best_time_s(fn, 1))
+    return [min(ts) for ts in times]
+
+
+def prepared(well: WellLog, settings: ScreenSettings) -> dict:
+    """The inputs the pipeline gives each stage of ``well``."""
     cv = clay_volume(well, settings)
     vsh, filled = fill_gaps(cv.depth_m, cv.vsh)
-    blk = lambda: block_with_boundaries(settings.blocking, cv.depth_m, vsh, (), filled=filled,
-                                        **settings.blocking_kwargs())
-    t["blocking"] = best_time_s(blk, repeat)
-    layers = blk()
-    t["sand_windows"] = best_time_s(lambda: sand_windows(layers, settings.throw_max_m), repeat)
+    layers = block_with_boundaries(settings.blocking, cv.depth_m, vsh, (), filled=filled,
+                                   **settings.blocking_kwargs())
     windows = sand_windows(layers, settings.throw_max_m)
-    t.update(field_times(layers, cv.depth_m, vsh, settings, repeat))
-    t["capacity"] = best_time_s(lambda: seal_capacity_step(well, layers, windows, settings), repeat)
-    t["window smear"] = best_time_s(lambda: window_smear(layers, windows, settings.throw_max_m), repeat)
-    t["whole screening"] = best_time_s(lambda: screen_well(well, settings), repeat)
-    t["_windows"] = len(windows)
-    t["_layers"] = len(layers)
-    return t
+    grid = sgr_field(layers, cv.depth_m, vsh, throw_max_m=settings.throw_max_m,
+                     throw_step_m=settings.field_throw_step_m,
+                     depth_step_m=settings.field_depth_step_m, source=settings.sgr_field_source)
+    return {"well": well, "s": settings, "cv": cv, "vsh": vsh, "filled": filled,
+            "layers": layers, "windows": windows, "grid": grid}
 
 
-def field_times(layers, depth, vsh, settings, repeat) -> dict[str, float]:
-    def field():
-        return sgr_field(layers, depth, vsh, throw_max_m=settings.throw_max_m,
-                         throw_step_m=settings.field_throw_step_m,
-                         depth_step_m=settings.field_depth_step_m, source=settings.sgr_field_source)
+def stages(p: dict) -> dict:
+    """Each stage of one well as a function of no arguments, fed what the pipeline gives it."""
+    well, s, cv, layers = p["well"], p["s"], p["cv"], p["layers"]
+    return {
+        "QC flags": lambda: gr_flags(well.depth_m, well.gr_api, cali_in=well.curves["CALI"],
+                                     bs_in=well.curves["BS"]),
+        "GR-baseline zoning": lambda: zone_bounds(
+            well.depth_m, well.gr_api, "changepoint", bs_in=well.curves["BS"],
+            min_zone_m=s.zone_min_m, min_step_api=s.zone_step_api),
+        "clay volume (all)": lambda: clay_volume(well, s),
+        "blocking": lambda: block_with_boundaries(s.blocking, cv.depth_m, p["vsh"], (),
+                                                  filled=p["filled"], **s.blocking_kwargs()),
+        "sand_windows": lambda: sand_windows(layers, s.throw_max_m),
+        "SGR + juxtaposition field": lambda: sgr_field(
+            layers, cv.depth_m, p["vsh"], throw_max_m=s.throw_max_m,
+            throw_step_m=s.field_throw_step_m, depth_step_m=s.field_depth_step_m,
+            source=s.sgr_field_source),
+        "smear fields": lambda: with_smear_fields(p["grid"], layers),
+        "capacity": lambda: seal_capacity_step(well, layers, p["windows"], s),
+        "window smear": lambda: window_smear(layers, p["windows"], s.throw_max_m),
+        "whole screening": lambda: screen_well(well, s),
+    }
 
-    grid = field()
-    return {"SGR + juxtaposition field": best_time_s(field, repeat),
-            "smear fields": best_time_s(lambda: with_smear_fields(grid, layers), repeat),
-            "_cells": grid.sgr_pct.size}
+
+FIELD_STAGES = ("SGR + juxtaposition field", "smear fields")
 
 
 def exponent(t1: float, t2: float, n1: float, n2: float) -> float:
@@ -135,32 +147,26 @@ def main() -> None:
     args = ap.parse_args()
     n1, n2 = (int(v) for v in args.sizes.split(","))
     settings = ScreenSettings()
-    a = stage_times(synthetic_well(n1), settings, args.repeat)
-    b = stage_times(synthetic_well(n2), settings, args.repeat)
+    pa, pb = prepared(synthetic_well(n1), settings), prepared(synthetic_well(n2), settings)
+    sa, sb = stages(pa), stages(pb)
     print(f"stages of one well (throw max {settings.throw_max_m:g} m): {n1} samples "
-          f"({a['_layers']} layers, {a['_windows']} windows) and {n2} samples "
-          f"({b['_layers']} layers, {b['_windows']} windows)")
+          f"({len(pa['layers'])} layers, {len(pa['windows'])} windows) and {n2} samples "
+          f"({len(pb['layers'])} layers, {len(pb['windows'])} windows)")
     print(f"  {'stage':<28}{n1:>10}{n2:>10}   exponent in samples (1 = linear)")
-    for name in a:
-        if name.startswith("_"):
-            continue
-        print(f"  {name:<28}{a[name]:9.3f}s{b[name]:9.3f}s   {exponent(a[name], b[name], n1, n2):5.2f}")
+    for name in sa:
+        ta, tb = interleaved_best([sa[name], sb[name]], args.repeat)
+        print(f"  {name:<28}{ta:9.3f}s{tb:9.3f}s   {exponent(ta, tb, n1, n2):5.2f}")
 
     t1, t2 = (float(v) for v in args.throws.split(","))
     well = synthetic_well(args.throw_samples)
-    cv = clay_volume(well, settings)
-    vsh, filled = fill_gaps(cv.depth_m, cv.vsh)
-    layers = block_with_boundaries(settings.blocking, cv.depth_m, vsh, (), filled=filled,
-                                   **settings.blocking_kwargs())
-    fa = field_times(layers, cv.depth_m, vsh, settings.updated(throw_max_m=t1), args.repeat)
-    fb = field_times(layers, cv.depth_m, vsh, settings.updated(throw_max_m=t2), args.repeat)
-    print(f"fields of a {args.throw_samples}-sample well: throw max {t1:g} m ({fa['_cells'] / 1e6:.1f} M cells) "
-          f"and {t2:g} m ({fb['_cells'] / 1e6:.1f} M cells)")
-    for name in fa:
-        if name.startswith("_"):
-            continue
-        print(f"  {name:<28}{fa[name]:9.3f}s{fb[name]:9.3f}s   exponent in cells "
-              f"{exponent(fa[name], fb[name], fa['_cells'], fb['_cells']):5.2f}")
+    fa, fb = prepared(well, settings.updated(throw_max_m=t1)), prepared(well, settings.updated(throw_max_m=t2))
+    ca, cb = fa["grid"].sgr_pct.size, fb["grid"].sgr_pct.size
+    print(f"fields of a {args.throw_samples}-sample well: throw max {t1:g} m ({ca / 1e6:.1f} M cells) "
+          f"and {t2:g} m ({cb / 1e6:.1f} M cells)")
+    sa, sb = stages(fa), stages(fb)
+    for name in FIELD_STAGES:
+        ta, tb = interleaved_best([sa[name], sb[name]], args.repeat)
+        print(f"  {name:<28}{ta:9.3f}s{tb:9.3f}s   exponent in cells {exponent(ta, tb, ca, cb):5.2f}")
 
 
 if __name__ == "__main__":

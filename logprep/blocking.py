@@ -319,7 +319,7 @@ def pelt_mean_breaks(x, penalty: float, min_size: int = 1) -> np.ndarray:
         cand = np.concatenate((cand[drop_at > t0], new))
         drop_at = np.concatenate((drop_at[drop_at > t0], np.full(new.size, n + 1, dtype=np.intp)))
         ts = np.arange(t0, t1)
-        mf = (ts[:, None] - cand[None, :]).astype(float)
+        mf = ts.astype(float)[:, None] - cand.astype(float)[None, :]  # exact: small ints
         cost = s1[ts][:, None] - s1[cand][None, :]
         np.square(cost, out=cost)
         np.divide(cost, mf, out=cost)
@@ -337,13 +337,11 @@ def pelt_mean_breaks(x, penalty: float, min_size: int = 1) -> np.ndarray:
         k = np.argmin(total, axis=1)
         best[ts] = total[np.arange(ts.size), k] + penalty
         last[ts] = cand[k]
-        open_ = np.flatnonzero(drop_at > n)  # starts not yet marked for dropping
-        dominated = total[:, open_] > best[ts][:, None]
-        n_fresh = min(new.size, open_.size)  # the new starts are open and come last
-        if n_fresh:
-            dominated[:, open_.size - n_fresh:] &= ~young[:, new.size - n_fresh:]
-        hit = dominated.any(axis=0)
-        drop_at[open_[hit]] = ts[np.argmax(dominated[:, hit], axis=0)] + min_size
+        dominated = np.greater(total, best[ts][:, None])
+        dominated[:, fresh] &= ~young
+        dominated[:, drop_at <= n] = False  # only starts not yet marked for dropping
+        hit = np.flatnonzero(dominated.any(axis=0))
+        drop_at[hit] = ts[np.argmax(dominated[:, hit], axis=0)] + min_size
         t0 = t1
     breaks = []
     t = n

@@ -205,9 +205,12 @@ def _window_extremes(layers: Layers, w, throw_max_m: float, n_edge: int,
     pts = pts[pts[:, 0] > 0]  # t -> 0 has no smear distance along the fault
     if len(pts) == 0:
         return ssf_min, ssf_max, np.nan, np.nan
-    sub = Layers(layers.top_m[between], layers.base_m[between], layers.vsh[between],
-                 ["shale"] * len(between))
-    _, csp = smear_at(sub, pts[:, 1], pts[:, 0])
+    # CSP of smear_at, all the beds at once (one row each), summed in bed order
+    passed, _, term = _bed_terms(layers.top_m[between][:, None], layers.base_m[between][:, None],
+                                 pts[None, :, 1], pts[None, :, 0])
+    csp = np.zeros(len(pts))
+    for row in np.where(passed, term, 0.0):
+        csp += row
     return ssf_min, ssf_max, float(csp.min()), float(csp.max())
 
 
