@@ -165,3 +165,23 @@ def test_smear_fields_match_smear_at_point_by_point(throws):
     # the float64 sums themselves are the same to the last bit, not only after rounding
     _, csp64 = smear_fields(layers, z, throws, dtype=np.float64)
     np.testing.assert_array_equal(csp64, ref_csp)
+
+
+def test_well_log_shares_only_arrays_nothing_else_can_change():
+    """A reader's own read-only column is taken as is (no second copy of the log in
+    memory); a writable array, or a read-only view of one, is copied."""
+    from logprep.model import WellLog
+
+    owned = 1000.0 + np.arange(11.0)  # owns its memory
+    owned.setflags(write=False)
+    writable = np.arange(11.0)
+    block = np.arange(22.0).reshape(11, 2)
+    view = block[:, 1]
+    view.setflags(write=False)
+    w = WellLog("W", "w.las", "", owned, {"GR": writable, "RHOB": view}, {}, "M", "GR")
+    assert w.depth_m is owned
+    assert w.curves["GR"] is not writable and w.curves["RHOB"] is not view
+    writable[0] = -1.0
+    block[0, 1] = -1.0
+    assert w.curves["GR"][0] == 0.0 and w.curves["RHOB"][0] == 1.0
+    assert not any(a.flags.writeable for a in (w.depth_m, *w.curves.values()))
