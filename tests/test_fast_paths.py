@@ -185,3 +185,20 @@ def test_well_log_shares_only_arrays_nothing_else_can_change():
     block[0, 1] = -1.0
     assert w.curves["GR"][0] == 0.0 and w.curves["RHOB"][0] == 1.0
     assert not any(a.flags.writeable for a in (w.depth_m, *w.curves.values()))
+
+
+def test_cli_loads_no_science_to_print_its_version(capsys):
+    """``logprep --version`` must not pay for numpy, pandas or matplotlib (half a second
+    of imports): the CLI module imports them only when a command needs them."""
+    import subprocess
+    import sys
+
+    from logprep import __version__
+    from logprep.cli import main
+
+    probe = ("import sys, logprep.cli; print(sorted(m for m in "
+             "('numpy', 'pandas', 'scipy', 'matplotlib', 'lasio') if m in sys.modules))")
+    out = subprocess.run([sys.executable, "-c", probe], capture_output=True, text=True, check=True)
+    assert out.stdout.strip() == "[]"
+    assert main(["--version"]) == 0
+    assert capsys.readouterr().out == f"logprep {__version__}\n"
