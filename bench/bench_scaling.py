@@ -24,19 +24,18 @@ import math
 import numpy as np
 from timing import best_time_s
 
-from logprep.blocking import block_with_boundaries, fill_gaps
-from logprep.endpoints import zone_bounds
-from logprep.juxtaposition import sand_windows
+from logprep.clay.endpoints import zone_bounds
+from logprep.clay.qc import gr_flags
+from logprep.clay.stage import clay_volume
+from logprep.fault.capacity import seal_capacity_step
+from logprep.fault.juxtaposition import sand_windows
+from logprep.fault.settings import capacity_params
+from logprep.fault.sgr import sgr_field
+from logprep.fault.smear import window_smear, with_smear_fields
+from logprep.layers.blocking import block_with_boundaries, fill_gaps
 from logprep.model import WellLog
-from logprep.pipeline import (
-    ScreenSettings,
-    clay_volume,
-    screen_well,
-    seal_capacity_step,
-)
-from logprep.qc import gr_flags
-from logprep.sgr import sgr_field
-from logprep.smear import window_smear, with_smear_fields
+from logprep.run.pipeline import screen_well
+from logprep.run.settings import ScreenSettings
 
 STEP_M = 0.1524  # 0.5 ft, the common logging step
 
@@ -95,10 +94,10 @@ def interleaved_best(fns, repeat: int) -> list[float]:
 
 def prepared(well: WellLog, settings: ScreenSettings) -> dict:
     """The inputs the pipeline gives each stage of ``well``."""
-    cv = clay_volume(well, settings)
+    cv = clay_volume(well, settings.clay)
     vsh, filled = fill_gaps(cv.depth_m, cv.vsh)
     layers = block_with_boundaries(settings.blocking, cv.depth_m, vsh, (), filled=filled,
-                                   **settings.blocking_kwargs())
+                                   **settings.layers.blocking_kwargs())
     windows = sand_windows(layers, settings.throw_max_m)
     grid = sgr_field(layers, cv.depth_m, vsh, throw_max_m=settings.throw_max_m,
                      throw_step_m=settings.field_throw_step_m,
@@ -116,16 +115,17 @@ def stages(p: dict) -> dict:
         "GR-baseline zoning": lambda: zone_bounds(
             well.depth_m, well.gr_api, "changepoint", bs_in=well.curves["BS"],
             min_zone_m=s.zone_min_m, min_step_api=s.zone_step_api),
-        "clay volume (all)": lambda: clay_volume(well, s),
+        "clay volume (all)": lambda: clay_volume(well, s.clay),
         "blocking": lambda: block_with_boundaries(s.blocking, cv.depth_m, p["vsh"], (),
-                                                  filled=p["filled"], **s.blocking_kwargs()),
+                                                  filled=p["filled"], **s.layers.blocking_kwargs()),
         "sand_windows": lambda: sand_windows(layers, s.throw_max_m),
         "SGR + juxtaposition field": lambda: sgr_field(
             layers, cv.depth_m, p["vsh"], throw_max_m=s.throw_max_m,
             throw_step_m=s.field_throw_step_m, depth_step_m=s.field_depth_step_m,
             source=s.sgr_field_source),
         "smear fields": lambda: with_smear_fields(p["grid"], layers),
-        "capacity": lambda: seal_capacity_step(well, layers, p["windows"], s),
+        "capacity": lambda: seal_capacity_step(
+            well, layers, p["windows"], capacity_params(s.capacity, s.fault_rock), s.capacity.length_unit),
         "window smear": lambda: window_smear(layers, p["windows"], s.throw_max_m),
         "whole screening": lambda: screen_well(well, s),
     }

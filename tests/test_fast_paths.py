@@ -16,8 +16,8 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from logprep.blocking import pelt_mean_breaks
-from logprep.juxtaposition import (
+from logprep.changepoint import pelt_mean_breaks
+from logprep.fault.juxtaposition import (
     WINDOW_COLUMNS,
     _sgr_extremes,
     cumulative_clay,
@@ -26,7 +26,7 @@ from logprep.juxtaposition import (
     sand_windows,
 )
 from logprep.model import LITHOLOGIES, Layers
-from logprep.smear import smear_at, smear_fields
+from logprep.fault.smear import smear_at, smear_fields
 
 
 def pelt_one_end_at_a_time(x, penalty, min_size):

@@ -1,0 +1,150 @@
+"""Writing results: every file is written to a temporary name and moved into place, so an
+interrupted run never leaves a half-written file and earlier results stay until replaced."""
+
+from __future__ import annotations
+
+import io
+from contextlib import contextmanager
+import os
+import re
+import tempfile
+import warnings
+from pathlib import Path
+
+import pandas as pd
+from matplotlib.backends.backend_agg import FigureCanvasAgg
+from matplotlib.backends.backend_pdf import PdfPages
+
+from logprep.errors import OutputError
+from logprep.fault.juxtaposition import WINDOW_COLUMNS
+from logprep.io.survey import true_stratigraphic_thickness_m
+from logprep.report.lasexport import las_bytes
+from logprep.clay.qc import any_flag, layer_fraction, qc_table
+
+SUMMARY_COLUMNS = ["well", "source", "status", "message", "layers", "sand_sand_windows",
+                   "min_window_sgr_pct", "folder"]
+
+
+def write_bytes_atomic(path: Path, data: bytes) -> None:
+    """Write ``data`` to ``path`` through a temporary file in the same folder."""
+    path = Path(path)
+    try:
+        path.parent.mkdir(parents=True, exist_ok=True)
+        fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=path.parent)
+        try:
+            with os.fdopen(fd, "wb") as f:
+                f.write(data)
+            os.replace(tmp, path)
+        except BaseException:
+            Path(tmp).unlink(missing_ok=True)
+            raise
+    except OSError as exc:
+        raise OutputError(f"{path}: cannot write ({exc.strerror or exc})") from exc
+
+
+def prepare_out_dir(out_dir: str | Path) -> Path:
+    """Make the output folder (and its parents) before any work, so that an ``--out`` that
+    names a file or a folder that cannot be made fails at once with one message."""
+    out = Path(out_dir)
+    if out.exists() and not out.is_dir():
+        raise OutputError(f"{out}: a file of that name exists; --out must name a folder")
+    try:
+        out.mkdir(parents=True, exist_ok=True)
+    except OSError as exc:
+        raise OutputError(f"{out}: cannot make the output folder ({exc.strerror or exc}); "
+                          "choose another --out") from exc
+    return out
+
+
+def csv_bytes(frame: pd.DataFrame) -> bytes:
+    return frame.to_csv(index=False, float_format="%.10g", lineterminator="\n").encode()
+
+
+@contextmanager
+def _missing_glyphs_quiet():
+    """A context in which matplotlib's one-warning-per-character about letters missing from
+    the font (a well or file named in a script the font lacks) is not printed: those
+    letters are drawn as boxes, and the tables keep the names intact."""
+    with warnings.catch_warnings():
+        warnings.filterwarnings("ignore", message=r"Glyph \d+ .*missing from font",
+                                category=UserWarning)
+        yield
+
+
+def pdf_bytes(figures) -> bytes:
+    buf = io.BytesIO()
+    with _missing_glyphs_quiet(), \
+            PdfPages(buf, metadata={"Creator": "logprep", "Title": "fault-seal screening sheet"}) as pdf:
+        for fig in figures:
+            FigureCanvasAgg(fig)
+            pdf.savefig(fig)
+    return buf.getvalue()
+
+
+def png_bytes(figure, dpi: int = 110) -> bytes:
+    buf = io.BytesIO()
+    FigureCanvasAgg(figure)
+    with _missing_glyphs_quiet():
+        figure.savefig(buf, format="png", dpi=dpi)
+    return buf.getvalue()
+
+
+_UNSAFE = re.compile(r"[^A-Za-z0-9._-]+")
+
+RESERVED_NAMES = ("summary.csv", "pairs_summary.csv", "logprep-settings.toml")
+"""Files a run writes at the top of its output folder: no well folder may take their name."""
+
+
+def folder_name(source: str | Path, taken: set[str]) -> str:
+    """A safe, unique folder name from a file stem: unsafe characters become ``_``,
+    leading dots are dropped, and ``-2``, ``-3``... make it unique among ``taken``
+    (compared case-insensitively).  The name is added to ``taken``."""
+    base = _UNSAFE.sub("_", Path(source).stem).lstrip(".") or "well"
+    name, k = base, 2
+    while name.lower() in taken or name.lower() in RESERVED_NAMES:
+        name, k = f"{base}-{k}", k + 1
+    taken.add(name.lower())
+    return name
+
+
+def well_tables(result) -> dict[str, pd.DataFrame]:
+    """The machine-readable tables of one well, by file name."""
+    windows = result.windows.copy()
+    extra = [c for c in windows.columns if c not in WINDOW_COLUMNS]
+    layers = result.layers.to_frame()
+    layers["tst_m"] = true_stratigraphic_thickness_m(layers["thickness_m"], result.settings.input.bed_dip_deg)
+    if result.qc_flags:
+        layers["qc_flagged_fraction"] = layer_fraction(
+            result.depth_m, any_flag(result.qc_flags), result.layers.top_m, result.layers.base_m)
+    return {
+        "layers.csv": layers,
+        "juxtapositions.csv": windows[WINDOW_COLUMNS + extra],
+        "qc.csv": qc_table(result.depth_m, result.qc_flags),
+        "picks.csv": result.picks,
+    }
+
+
+def render_well(result, sheet_builder=None) -> dict[str, bytes]:
+    """Every output file of one well as bytes, rendered in memory first so that a failure
+    while drawing leaves nothing half-written.  With no ``sheet_builder`` the sheet
+    (``sheet.pdf``, ``sheet.png``) is left out: tables only, much faster."""
+    files = {name: csv_bytes(frame) for name, frame in well_tables(result).items()}
+    if getattr(result, "grid", None) is not None:
+        files["sgr_field.npz"] = result.grid.npz_bytes()
+    if sheet_builder is not None:
+        pages = sheet_builder(result)
+        files["sheet.pdf"] = pdf_bytes(pages)
+        files["sheet.png"] = png_bytes(pages[0])
+    files["curves.las"] = las_bytes(result)
+    return files
+
+
+def write_well(files: dict[str, bytes], well_dir: Path) -> None:
+    for name, data in files.items():
+        write_bytes_atomic(Path(well_dir) / name, data)
+
+
+def write_summary(rows: list[dict], out_dir: Path) -> Path:
+    path = Path(out_dir) / "summary.csv"
+    write_bytes_atomic(path, csv_bytes(pd.DataFrame(rows, columns=SUMMARY_COLUMNS)))
+    return path

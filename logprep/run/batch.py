@@ -1,0 +1,138 @@
+"""Batch screening over files and folders: one well's failure never stops the others."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from pathlib import Path
+from collections.abc import Callable, Iterable
+
+from logprep.run.config import SETTINGS_FILE_NAME, write_settings
+from logprep.errors import LogprepError
+from logprep.report.writers import folder_name, prepare_out_dir, render_well, write_summary, write_well
+from logprep.run.pipeline import screen_file
+from logprep.run.settings import ScreenSettings
+from logprep.io.survey import check_survey_dir
+from logprep.io.tops import read_tops
+
+
+def find_las_files(paths: Iterable[str | Path]) -> list[Path]:
+    """LAS files named directly, or found recursively (``.las`` in any case) below folders,
+    in sorted order without repeats.  A path that does not exist raises
+    :class:`LogprepError`."""
+    found: list[Path] = []
+    for p in map(Path, paths):
+        if p.is_dir():
+            found += sorted(q for q in p.rglob("*") if q.is_file() and q.suffix.lower() == ".las")
+        elif p.is_file():
+            found.append(p)
+        else:
+            raise LogprepError(f"{p}: no such file or folder")
+    seen, unique = set(), []
+    for f in found:
+        key = f.resolve()
+        if key not in seen:
+            seen.add(key)
+            unique.append(f)
+    return unique
+
+
+@dataclass
+class BatchReport:
+    summary_path: Path
+    rows: list[dict]
+
+    @property
+    def failures(self) -> list[dict]:
+        return [r for r in self.rows if r["status"] != "ok"]
+
+
+def screen_one(path: Path, folder: str, out_dir: Path, settings: ScreenSettings, tops=None,
+               sheets: bool = True) -> dict:
+    """Screen one file and write its folder; return its ``summary.csv`` row.
+
+    A :class:`LogprepError` becomes a row with ``status`` ``error`` and a one-line
+    message naming the file; nothing is written for that file.  ``sheets=False`` writes
+    the tables only.  Top-level so that worker processes can run it.
+    """
+    from logprep.report.sheet import build_sheet  # drawing is imported only when needed
+
+    row = {"well": folder, "source": str(path), "status": "ok", "message": "",
+           "layers": "", "sand_sand_windows": "", "min_window_sgr_pct": "", "folder": ""}
+    try:
+        result = screen_file(path, settings, tops=tops)
+        files_out = render_well(result, build_sheet if sheets else None)
+        write_well(files_out, Path(out_dir) / folder)
+    except LogprepError as exc:
+        msg = str(exc).splitlines()[0] if str(exc) else type(exc).__name__
+        if str(path) not in msg:
+            msg = f"{path}: {msg}"
+        row.update(status="error", message=msg)
+        return row
+    cross = result.windows[~result.windows["self_juxtaposed"]]
+    row.update(
+        well=result.well.name, layers=len(result.layers), sand_sand_windows=len(cross),
+        min_window_sgr_pct=round(result.min_window_sgr_pct, 3), folder=folder,
+    )
+    return row
+
+
+def screen_paths(
+    paths: Iterable[str | Path],
+    out_dir: str | Path,
+    settings: ScreenSettings = ScreenSettings(),
+    *,
+    on_error: Callable[[str], None] | None = None,
+    progress: Callable[[Iterable], Iterable] | None = None,
+    jobs: int = 1,
+    sheets: bool = True,
+) -> BatchReport:
+    """Screen every LAS file under ``paths`` and write results below ``out_dir``.
+
+    Each file gets its own folder (see :func:`logprep.report.writers.folder_name`) holding
+    ``layers.csv``, ``juxtapositions.csv``, ``sheet.pdf`` and ``sheet.png`` and the other
+    per-well files; ``out_dir/summary.csv`` lists every file with ``status`` ``ok`` or
+    ``error`` (rewritten whole after each well, in input order), and
+    ``out_dir/logprep-settings.toml`` holds the settings used (see :mod:`logprep.run.config`).
+    A :class:`LogprepError` for one file is recorded (and passed to ``on_error``) and the
+    batch goes on; any other exception is a bug and propagates.  ``jobs`` > 1 screens wells
+    in that many worker processes (results are the same as with one); ``sheets=False``
+    skips the PDF/PNG sheets (tables and fields only) for fast large batches.
+    """
+    out = Path(out_dir)
+    files = find_las_files(paths)
+    if not files:
+        raise LogprepError(f"no .las files found in {', '.join(map(str, paths))}")
+    if jobs < 1:
+        raise LogprepError(f"--jobs must be 1 or more (got {jobs})")
+    # inputs shared by every well are checked once, before any well is screened
+    prepare_out_dir(out)
+    tops = read_tops(settings.input.tops_file) if settings.input.tops_file else None
+    if settings.input.survey_dir:
+        check_survey_dir(settings.input.survey_dir)
+    write_settings(out / SETTINGS_FILE_NAME, settings)
+    taken: set[str] = set()
+    folders = [folder_name(f, taken) for f in files]
+    rows: list[dict | None] = [None] * len(files)
+    summary = out / "summary.csv"
+
+    def record(i: int, row: dict) -> None:
+        nonlocal summary
+        rows[i] = row
+        if row["status"] != "ok" and on_error:
+            on_error(row["message"])
+        summary = write_summary([r for r in rows if r is not None], out)
+
+    if jobs == 1 or len(files) == 1:
+        iterator = progress(range(len(files))) if progress else range(len(files))
+        for i in iterator:
+            record(i, screen_one(files[i], folders[i], out, settings, tops, sheets))
+    else:
+        from concurrent.futures import ProcessPoolExecutor, as_completed
+
+        with ProcessPoolExecutor(max_workers=min(jobs, len(files))) as pool:
+            futures = {pool.submit(screen_one, f, name, out, settings, tops, sheets): i
+                       for i, (f, name) in enumerate(zip(files, folders))}
+            done = as_completed(futures)
+            for fut in (progress(done) if progress else done):
+                record(futures[fut], fut.result())
+    return BatchReport(summary_path=summary, rows=[r for r in rows if r is not None])
