@@ -100,7 +100,7 @@ def smear_at(layers: Layers, depth_m, throw_m) -> tuple[np.ndarray, np.ndarray]:
 
 
 def smear_fields(layers: Layers, depth_m, throw_m, dtype=np.float32):
-    """SSF and CSP (m) on the grid ``depth_m`` (rows, increasing) x ``throw_m`` (columns).
+    """SSF and CSP (m) on the grid ``depth_m`` (rows) x ``throw_m`` (columns).
 
     A bed passes a point ``(z, t > 0)`` only for ``top < z < base + t``, so each bed is
     worked on over the rows from its top to its base plus the largest throw and, row
@@ -109,13 +109,14 @@ def smear_fields(layers: Layers, depth_m, throw_m, dtype=np.float32):
     spans), which is linear in the rows at a fixed throw range; CSP is a sum over the
     passed beds, so it cannot be cheaper than that.  Values are those of
     :func:`smear_at` point by point, bit for bit (the same terms added in the same bed
-    order).  Unsorted or negative throws take a plain per-bed pass over all throws.
+    order).  Unsorted or negative throws, or depths not increasing, take a plain per-bed
+    pass over all rows and throws.
     """
     z = np.asarray(depth_m, float)
     t = np.asarray(throw_m, float)
     tmax = np.zeros((z.size, t.size))
     csp = np.zeros((z.size, t.size))
-    if t.size and (t[0] < 0 or np.any(np.diff(t) <= 0)):
+    if t.size and (t[0] < 0 or np.any(np.diff(t) <= 0) or np.any(np.diff(z) <= 0)):
         _smear_dense(layers, z, t, tmax, csp)
     elif t.size and z.size:
         _smear_staircase(layers, z, t, tmax, csp)
@@ -127,9 +128,11 @@ def _smear_dense(layers: Layers, z, t, tmax, csp) -> None:
     """Every source bed over the rows it can reach (``z`` within its top and base plus
     the largest throw) and every throw: the general case of :func:`smear_fields`."""
     reach = float(np.abs(t).max(initial=0.0))
+    increasing = bool(np.all(np.diff(z) > 0))
     for i in source_beds(layers):
         top, base = layers.top_m[i], layers.base_m[i]
-        r0, r1 = np.searchsorted(z, [top - reach, base + reach], side="left")
+        r0, r1 = np.searchsorted(z, [top - reach, base + reach], side="left") if increasing \
+            else (0, z.size)
         rows = slice(r0, r1 + 1)
         passed, thick, term = _bed_terms(top, base, z[rows, None], t[None, :])
         np.maximum(tmax[rows], np.where(passed, thick, 0.0), out=tmax[rows])
