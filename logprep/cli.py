@@ -9,15 +9,13 @@ import warnings
 from logprep import __version__
 from logprep.errors import LogprepError
 
-# The science (numpy, pandas, matplotlib) is imported only when a command or its options
-# need it, so that ``logprep --version`` starts about as fast as Python itself.
+# the science is imported only where a command or its options need it (fast --version)
 
 EXIT_OK, EXIT_SOME_FAILED, EXIT_USAGE = 0, 1, 2
 
 
 def _clay_options(p: argparse.ArgumentParser, d) -> None:
     from logprep.clay.vshale import TRANSFORMS
-
     g = p.add_argument_group("clay volume")
     g.add_argument("--transform", dest="transform", choices=list(TRANSFORMS),
                    help=f"IGR to Vsh transform (default: {d.clay.transform})")
@@ -35,7 +33,6 @@ def _clay_options(p: argparse.ArgumentParser, d) -> None:
 
 def _blocking_options(p: argparse.ArgumentParser, d) -> None:
     from logprep.layers.blocking import BLOCKING_METHODS
-
     g = p.add_argument_group("blocking")
     g.add_argument("--blocking", dest="blocking", choices=list(BLOCKING_METHODS),
                    help=f"blocking method (default: {d.layers.blocking})")
@@ -54,7 +51,6 @@ def _blocking_options(p: argparse.ArgumentParser, d) -> None:
 
 def _fault_options(p: argparse.ArgumentParser, d) -> None:
     from logprep.fault.sgr import SGR_FIELD_SOURCES
-
     g = p.add_argument_group("fault")
     g.add_argument("--throw-max", dest="throw_max_m", type=float, metavar="M",
                    help=f"largest throw screened, metres (default: {d.field.throw_max_m})")
