@@ -7,15 +7,15 @@ import sys
 import warnings
 
 from logprep import __version__
-from logprep.layers.blocking import BLOCKING_METHODS
 from logprep.errors import LogprepError
-from logprep.fault.sgr import SGR_FIELD_SOURCES
-from logprep.clay.vshale import TRANSFORMS
+
+# the science is imported only where a command or its options need it (fast --version)
 
 EXIT_OK, EXIT_SOME_FAILED, EXIT_USAGE = 0, 1, 2
 
 
 def _clay_options(p: argparse.ArgumentParser, d) -> None:
+    from logprep.clay.vshale import TRANSFORMS
     g = p.add_argument_group("clay volume")
     g.add_argument("--transform", dest="transform", choices=list(TRANSFORMS),
                    help=f"IGR to Vsh transform (default: {d.clay.transform})")
@@ -32,6 +32,7 @@ def _clay_options(p: argparse.ArgumentParser, d) -> None:
 
 
 def _blocking_options(p: argparse.ArgumentParser, d) -> None:
+    from logprep.layers.blocking import BLOCKING_METHODS
     g = p.add_argument_group("blocking")
     g.add_argument("--blocking", dest="blocking", choices=list(BLOCKING_METHODS),
                    help=f"blocking method (default: {d.layers.blocking})")
@@ -49,6 +50,7 @@ def _blocking_options(p: argparse.ArgumentParser, d) -> None:
 
 
 def _fault_options(p: argparse.ArgumentParser, d) -> None:
+    from logprep.fault.sgr import SGR_FIELD_SOURCES
     g = p.add_argument_group("fault")
     g.add_argument("--throw-max", dest="throw_max_m", type=float, metavar="M",
                    help=f"largest throw screened, metres (default: {d.field.throw_max_m})")
@@ -377,7 +379,23 @@ def build_parser() -> argparse.ArgumentParser:
     return parser
 
 
+def _asks_version(argv: list[str]) -> bool:
+    """True when ``--version`` comes before any command or help option, where argparse
+    would print the version and stop: answered without building the parser (whose
+    options need the science's registries)."""
+    for token in argv:
+        if token == "--version":
+            return True
+        if token in ("-h", "--help") or not token.startswith("-"):
+            return False
+    return False
+
+
 def main(argv: list[str] | None = None) -> int:
+    argv = sys.argv[1:] if argv is None else list(argv)
+    if _asks_version(argv):
+        print(f"logprep {__version__}")
+        return EXIT_OK
     parser = build_parser()
     args = parser.parse_args(argv)
     if not getattr(args, "func", None):
