@@ -14,16 +14,17 @@ MAX_TABLE_PAGES = 3
 
 
 def window_table_pages(result) -> list[Figure]:
-    """Table pages for the windows beyond page 1's, lowest SGR first."""
+    """Table pages for the windows beyond page 1's, lowest SGR first (page 1 holds the
+    :data:`~logprep.report.draw.ROWS_PAGE1` lowest)."""
     w = result.windows
     cross = w[~w["self_juxtaposed"]].sort_values("sgr_min_pct", kind="stable")
     if len(cross) <= ROWS_PAGE1:
         return []
-    numbers = [int(i) + 1 for i in cross.index]
+    numbers = [int(i) + 1 for i in cross.index[ROWS_PAGE1:]]  # page 1 holds the first ones
     s = result.settings
     rows = window_rows(w, numbers, s.capacity.sgr_threshold_pct, s.capacity.length_unit,
                        tops=getattr(result, "tops", None))
-    pages, left, shown = [], rows, 0
+    pages, left, shown = [], rows, ROWS_PAGE1
     while left and len(pages) < MAX_TABLE_PAGES:
         page = Figure(figsize=PAGE_SIZE_IN)
         page.text(0.015, 0.975, f"{result.well.name}: sand-sand windows between different sands, "
@@ -34,7 +35,7 @@ def window_table_pages(result) -> list[Figure]:
         left = draw_window_table(ax, left, "", blocks=0, fontsize=6.5)
         first, last = shown + 1, shown + before - len(left)
         shown = last
-        note = f"windows {first}-{last} of {len(rows)} by lowest SGR"
+        note = f"windows {first}-{last} of {len(cross)} by lowest SGR (the first {ROWS_PAGE1} on page 1)"
         if left and len(pages) == MAX_TABLE_PAGES - 1:
             note += (f"; the other {len(left)} (higher SGR) are not printed: every window is in "
                      "juxtapositions.csv")
