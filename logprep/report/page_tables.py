@@ -9,7 +9,7 @@ from matplotlib.figure import Figure
 
 from logprep.report.draw import PAGE_SIZE_IN, ROWS_PAGE1, draw_footer, draw_window_table, window_rows
 
-MAX_TABLE_PAGES = 3
+MAX_TABLE_PAGES = 2
 """Most window-table pages on a sheet."""
 
 
