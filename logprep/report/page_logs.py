@@ -31,8 +31,8 @@ def draw_gr_track(ax, result) -> None:
     clipped = np.isfinite(result.gr_api) & (result.gr_api > gr_max)
     ax.plot(np.minimum(result.gr_api, gr_max), result.depth_m, color=INK, lw=0.6)
     if clipped.any():
-        ax.scatter(np.full(int(clipped.sum()), 0.995), result.depth_m[clipped], s=9, marker="4",
-                   color=CLIPPED_INK, transform=ax.get_yaxis_transform(), clip_on=False,
+        ax.scatter(np.full(int(clipped.sum()), 0.985), result.depth_m[clipped], s=9, marker="4",
+                   color=CLIPPED_INK, transform=ax.get_yaxis_transform(),
                    label=f"{int(clipped.sum())} > {gr_max:g} API, at edge")
     if result.gr_clean_line is not None:
         ax.plot(result.gr_clean_line, result.depth_m, color="#0072B2", ls="--", lw=1,
