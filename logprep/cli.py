@@ -7,6 +7,7 @@ import sys
 import warnings
 
 from logprep import __version__
+from logprep.cli_batch import add_batch_options, batch_backend
 from logprep.errors import LogprepError
 
 # the science is imported only where a command or its options need it (fast --version)
@@ -199,12 +200,6 @@ def _add_config_option(p: argparse.ArgumentParser) -> None:
                         "it used to logprep-settings.toml in its output folder")
 
 
-def _backend(args):
-    from logprep.run.executor import Backend
-
-    return Backend(jobs=args.jobs, scheduler=args.scheduler, dask_local=args.dask_local)
-
-
 def _add_locations_option(p: argparse.ArgumentParser) -> None:
     p.add_argument("--locations", metavar="FILE",
                    help="well locations for the overview map: CSV of well and x, y (or "
@@ -242,7 +237,7 @@ def cmd_screen(args) -> int:
         read_locations(args.locations)  # likewise a bad locations file
     from logprep.run.progress import Progress
 
-    backend = _backend(args)
+    backend = batch_backend(args)
     report = screen_paths(
         paths, args.out, settings,
         progress=Progress("quiet" if args.quiet else "auto", sys.stderr),
@@ -313,29 +308,6 @@ def cmd_tune(args) -> int:
     return EXIT_OK
 
 
-def _add_batch_options(p: argparse.ArgumentParser) -> None:
-    g = p.add_argument_group("batch: where wells run, what is written, reruns")
-    g.add_argument("--jobs", type=int, default=1, metavar="N",
-                   help="screen wells in N worker processes on this machine (default: 1)")
-    g.add_argument("--scheduler", metavar="ADDRESS",
-                   help="send one task per well and per pair to the Dask cluster whose "
-                        "scheduler listens at ADDRESS (e.g. tcp://10.0.0.5:8786); inputs must "
-                        "be on a path every worker sees; this process writes the outputs "
-                        "(needs pip install 'logprep[dask]')")
-    g.add_argument("--dask-local", type=int, metavar="N",
-                   help="start a Dask cluster of N worker processes on this machine for the run")
-    g.add_argument("--no-sheet", action="store_true",
-                   help="write tables and fields only, no PDF/PNG sheets (fast, for large batches)")
-    g.add_argument("--no-field", action="store_true",
-                   help="do not write sgr_field.npz (the triangle diagram on the sheet is still drawn)")
-    g.add_argument("--field-smear", action="store_true",
-                   help="also store the smear fields (SSF, CSP) in sgr_field.npz (about doubles it)")
-    g.add_argument("--force", action="store_true",
-                   help="redo every well, also those unchanged since the last run on --out")
-    g.add_argument("--quiet", action="store_true",
-                   help="no progress on stderr (errors and the final line are still printed)")
-
-
 def build_parser() -> argparse.ArgumentParser:
     parser = argparse.ArgumentParser(
         prog="logprep",
@@ -358,7 +330,7 @@ def build_parser() -> argparse.ArgumentParser:
     p.add_argument("--out", default="screening", metavar="DIR",
                    help="output folder (default: ./%(default)s)")
     _add_config_option(p)
-    _add_batch_options(p)
+    add_batch_options(p)
     p.add_argument("--pairs", metavar="FILE",
                    help="also screen well pairs across a fault: CSV of footwall, hangingwall and "
                         "marker (a top in both wells, needs --tops) or shift_m; one folder per pair")
