@@ -130,7 +130,9 @@ def _run_processes(fn, tasks, shared, jobs, max_stops: int = 2):
                     lost += list(inflight.values())
                     break
         finally:
-            pool.shutdown(wait=not lost, cancel_futures=True)
+            # wait for the pool's own threads, so that the next pool is not forked while
+            # they hold a lock
+            pool.shutdown(wait=True, cancel_futures=True)
         for i in sorted(set(lost), reverse=True):
             stops[i] = stops.get(i, 0) + 1
             if stops[i] >= max_stops:
