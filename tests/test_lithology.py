@@ -156,3 +156,15 @@ def test_rock_scores_hand_worked():
     import pandas as pd
     pooled = pooled_scores(pd.DataFrame([s, s]))
     assert pooled["precision"] == pytest.approx(0.8) and pooled["recall"] == pytest.approx(0.75)
+
+
+def test_window_footing():
+    import pandas as pd
+
+    from logprep.layers.footing import window_footing
+    windows = pd.DataFrame({"footwall_layer": [0, 0, 2], "hangingwall_layer": [0, 2, 2]})
+    out = window_footing(windows, filled_fraction=[0.0, 0.0, 0.4], flagged_fraction=[0.5, 0, 0],
+                         thickness_m=[10.0, 5.0, 2.0], thin_m=3.0)
+    assert list(out["footing"]) == ["flagged", "partly filled; flagged; thin", "partly filled; thin"]
+    empty = window_footing(windows.iloc[:0], [0.0], [0.0], [1.0])
+    assert len(empty) == 0 and empty["thin"].dtype == bool
