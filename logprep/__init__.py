@@ -1,8 +1,8 @@
 """logprep: fault-seal screening straight from well logs.
 
-The science lives in small pure modules (:mod:`logprep.vshale`, :mod:`logprep.blocking`,
-:mod:`logprep.juxtaposition`, :mod:`logprep.sgr`); LAS input is in :mod:`logprep.lasread`,
-drawing in :mod:`logprep.sheet`, the batch runner in :mod:`logprep.batch` and the command line
+The science lives in small pure modules (:mod:`logprep.clay.vshale`, :mod:`logprep.layers.blocking`,
+:mod:`logprep.fault.juxtaposition`, :mod:`logprep.fault.sgr`); LAS input is in :mod:`logprep.io.las`,
+drawing in :mod:`logprep.report.sheet`, the batch runner in :mod:`logprep.run.batch` and the command line
 in :mod:`logprep.cli`.
 """
 

@@ -11,7 +11,7 @@ from matplotlib.figure import Figure
 from matplotlib.ticker import MaxNLocator
 
 from logprep import __version__
-from logprep.caution import CAUTION
+from logprep.report.caution import CAUTION
 
 LEAK_COLOUR, SEAL_COLOUR, INK = "#D55E00", "#0072B2", "#222222"
 PAGE_SIZE_IN = (16.5, 11.7)  # A3 landscape, as the screening sheet
@@ -57,7 +57,7 @@ def _box(j, i):
 def sweep_figure(sweep) -> Figure:
     """One page: verdict flips and lowest window SGR over the cut-offs for each minimum
     bed, the stability of every reference window, and a summary."""
-    from logprep.tune import stable_settings
+    from logprep.run.tune import stable_settings
 
     table, ref = sweep.table, sweep.settings
     res = sweep.reference

@@ -1,7 +1,7 @@
 """The per-well screening sheet: builds matplotlib Figures, never saves or shows them.
 
 Page 1 is assembled from panel functions (``draw_*``), each drawing one axes from a
-:class:`~logprep.pipeline.WellScreening`; later pages come from the functions in
+:class:`~logprep.run.pipeline.WellScreening`; later pages come from the functions in
 :data:`EXTRA_PAGES`, each returning a list of Figures.  To add a page, append a function
 there; to change a panel, edit its ``draw_*`` function only.
 
@@ -20,7 +20,7 @@ from matplotlib.figure import Figure
 from matplotlib.patches import Patch
 
 from logprep import __version__
-from logprep.caution import CAUTION
+from logprep.report.caution import CAUTION
 
 LITHOLOGY_COLOURS = {"sand": "#F0E442", "heterolith": "#E69F00", "shale": "#8C8C8C"}
 SGR_CONTOURS_PCT = (10, 20, 30, 40, 60)
@@ -74,16 +74,16 @@ def draw_vsh_track(ax, result) -> None:
     if result.vsh_nd is not None and np.any(np.isfinite(result.vsh_nd)):
         ax.plot(result.vsh_nd, result.depth_m, color="#009E73", lw=0.4, alpha=0.7,
                 label="Vsh neutron-density")
-    ax.plot(result.vsh, result.depth_m, color="#777777", lw=0.5, label=f"Vsh ({s.vsh_combine})")
+    ax.plot(result.vsh, result.depth_m, color="#777777", lw=0.5, label=f"Vsh ({s.clay.vsh_combine})")
     z = np.column_stack([L.top_m, L.base_m]).ravel()
     ax.plot(np.repeat(L.vsh, 2), z, color="#0072B2", lw=1.2, label="blocked")
-    for cut in (s.sand_cutoff, s.shale_cutoff):
+    for cut in (s.layers.sand_cutoff, s.layers.shale_cutoff):
         ax.axvline(cut, color="#999999", lw=0.8, ls=":")
     if result.filled.any():
         ax.plot(np.where(result.filled, result.vsh, np.nan), result.depth_m, color="#CC79A7",
                 lw=2.5, label="interpolated")
     ax.set_xlim(0, 1)
-    ax.set_xlabel(f"Vsh ({s.transform})")
+    ax.set_xlabel(f"Vsh ({s.clay.transform})")
     ax.legend(loc="lower left", fontsize=6.5, framealpha=0.9)
     ax.tick_params(labelleft=False)
 
@@ -112,7 +112,7 @@ WINDOW_INK = "#D55E00"  # Okabe & Ito vermillion: sand-sand window outlines
 MAX_DRAWN_ROWS = 700
 CLASS_HATCHES = {1: "////", 2: "...."}
 """Juxtaposition classes hatched on the triangle diagram (codes of
-:data:`logprep.juxtaposition.JUXTAPOSITION_CLASSES`): sand/sand and sand/heterolith."""
+:data:`logprep.fault.juxtaposition.JUXTAPOSITION_CLASSES`): sand/sand and sand/heterolith."""
 
 
 def sgr_levels(threshold_pct: float) -> list[float]:
@@ -143,13 +143,13 @@ def field_ylim(depth, dz: float) -> tuple[float, float]:
 
 def draw_field(ax, grid, *, threshold_pct: float, throw_max_m: float, windows=None,
                labelled=(), hw_shift_m: float = 0.0):
-    """Triangle diagram from an :class:`~logprep.sgr.SgrField`: SGR as colour, contours at
+    """Triangle diagram from an :class:`~logprep.fault.sgr.SgrField`: SGR as colour, contours at
     the screening threshold (bold) and fixed levels, the juxtaposition classes of
     :data:`CLASS_HATCHES` hatched, and the sand-sand windows of ``windows``
     outlined (the rows in ``labelled``, numbered from 1, thicker and numbered).
     ``hw_shift_m`` converts a window's hanging-wall depths into the footwall frame.
     Returns the SGR image (for a colour bar)."""
-    from logprep.sgr import contact_polygon
+    from logprep.fault.sgr import contact_polygon
 
     step = max(1, int(np.ceil(grid.depth_m.size / MAX_DRAWN_ROWS)))
     depth, throw = grid.depth_m[::step], grid.throw_m
@@ -210,7 +210,7 @@ def draw_triangle(ax, result, labelled=()) -> None:
     the screening threshold and fixed levels, juxtaposition classes, and the sand-sand
     windows outlined (``labelled`` row numbers from 1 numbered)."""
     s = result.settings
-    im = draw_field(ax, result.grid, threshold_pct=s.sgr_threshold_pct, throw_max_m=s.throw_max_m,
+    im = draw_field(ax, result.grid, threshold_pct=s.capacity.sgr_threshold_pct, throw_max_m=s.field.throw_max_m,
                     windows=result.windows, labelled=labelled)
     draw_sgr_colourbar(ax, im)
     ax.set_xlabel("Throw (m); normal fault, hanging wall down")
@@ -224,7 +224,7 @@ def draw_legend(ax, result) -> None:
     ax.set_axis_off()
     from matplotlib.lines import Line2D
 
-    th = result.settings.sgr_threshold_pct
+    th = result.settings.capacity.sgr_threshold_pct
     handles = [
         Patch(facecolor="#7F7F7F", edgecolor="#FFFFFF", hatch="////", label="sand/sand juxtaposition"),
         Patch(facecolor="#7F7F7F", edgecolor="#FFFFFF", hatch="....", label="sand/heterolith juxtaposition"),
@@ -240,20 +240,20 @@ def draw_legend(ax, result) -> None:
     L = result.layers
     sand = np.array(L.lithology) == "sand"
     cross = result.windows[~result.windows["self_juxtaposed"]]
-    low = cross[cross["sgr_min_pct"] < result.settings.sgr_threshold_pct]
+    low = cross[cross["sgr_min_pct"] < result.settings.capacity.sgr_threshold_pct]
     lines = [
         f"{len(L)} layers, {int(sand.sum())} sands, net-to-gross "
         f"{L.thickness_m[sand].sum() / L.thickness_m.sum():.2f}",
         f"{len(cross)} windows between different sands within throws 0-"
-        f"{result.settings.throw_max_m:g} m",
-        f"{len(low)} reach SGR below {result.settings.sgr_threshold_pct:g} %; "
+        f"{result.settings.field.throw_max_m:g} m",
+        f"{len(low)} reach SGR below {result.settings.capacity.sgr_threshold_pct:g} %; "
         f"lowest window SGR {result.min_window_sgr_pct:.1f} %",
     ]
     if "verdict" in cross:
         counts = cross["verdict"].value_counts()
         lines.append("verdicts: " + ", ".join(f"{counts.get(v, 0)} {v}" for v in ("leak", "uncertain", "seal"))
-                     + f" (leak below SGR {result.settings.sgr_leak_pct:g} %, seal from "
-                     f"{result.settings.sgr_threshold_pct:g} %)")
+                     + f" (leak below SGR {result.settings.capacity.sgr_leak_pct:g} %, seal from "
+                     f"{result.settings.capacity.sgr_threshold_pct:g} %)")
         lines.append("column heights against throw: page 2")
     ax.text(0, 0.0, "\n".join(lines), fontsize=8.5, va="bottom")
 
@@ -353,14 +353,14 @@ def draw_footer(fig, result) -> None:
     prov = (
         f"Source: {w.source}   sha256 {w.sha256[:16]}...   WELL '{w.name}'   depth unit as read: "
         f"{w.depth_unit}   GR curve: {w.gr_mnemonic}   logprep {__version__}\n"
-        f"Settings: transform {s.transform}; GR clean {s.gr_clean}, shale {s.gr_shale} per zone "
-        f"({len(result.picks)} zone(s), {s.zoning}; whole well {result.gr_clean_api:.1f}-"
-        f"{result.gr_shale_api:.1f} API; picks.csv); Vsh {s.vsh_combine} of GR and neutron-density; "
-        f"QC flags in qc.csv;\n          cut-offs sand <= {s.sand_cutoff:g}, "
-        f"shale >= {s.shale_cutoff:g}; min bed {s.min_bed_m:g} m; blocking {s.blocking}"
-        f"{f' (penalty {s.changepoint_penalty:g})' if s.blocking == 'changepoint' else ''}"
-        f"{', tied to tops' if s.honour_tops else ''}; "
-        f"throws 0-{s.throw_max_m:g} m; SGR threshold {s.sgr_threshold_pct:g} %."
+        f"Settings: transform {s.clay.transform}; GR clean {s.clay.gr_clean}, shale {s.clay.gr_shale} per zone "
+        f"({len(result.picks)} zone(s), {s.clay.zoning}; whole well {result.gr_clean_api:.1f}-"
+        f"{result.gr_shale_api:.1f} API; picks.csv); Vsh {s.clay.vsh_combine} of GR and neutron-density; "
+        f"QC flags in qc.csv;\n          cut-offs sand <= {s.layers.sand_cutoff:g}, "
+        f"shale >= {s.layers.shale_cutoff:g}; min bed {s.layers.min_bed_m:g} m; blocking {s.layers.blocking}"
+        f"{f' (penalty {s.layers.changepoint_penalty:g})' if s.layers.blocking == 'changepoint' else ''}"
+        f"{', tied to tops' if s.layers.honour_tops else ''}; "
+        f"throws 0-{s.field.throw_max_m:g} m; SGR threshold {s.capacity.sgr_threshold_pct:g} %."
     )
     if result.notes:
         prov += "\nNotes: " + "; ".join(result.notes)
@@ -400,8 +400,8 @@ def overview_page(result) -> Figure:
     if n_cross > len(numbers):
         title += f" ({len(numbers)} of {n_cross}; all overleaf)"
     draw_window_table(fig.add_subplot(right[1]),
-                      window_rows(result.windows, numbers, result.settings.sgr_threshold_pct,
-                                  result.settings.length_unit),
+                      window_rows(result.windows, numbers, result.settings.capacity.sgr_threshold_pct,
+                                  result.settings.capacity.length_unit),
                       title)
     draw_footer(fig, result)
     return fig
@@ -421,8 +421,8 @@ def window_table_pages(result) -> list[Figure]:
                       x=0.015, ha="left", fontsize=13, fontweight="bold")
         ax = page.add_axes([0.03, 0.15, 0.6, 0.78])
         chunk = numbers[start:start + ROWS_PER_PAGE]
-        draw_window_table(ax, window_rows(w, chunk, result.settings.sgr_threshold_pct,
-                                          result.settings.length_unit),
+        draw_window_table(ax, window_rows(w, chunk, result.settings.capacity.sgr_threshold_pct,
+                                          result.settings.capacity.length_unit),
                           f"rows {chunk[0]}-{chunk[-1]} of {len(w)}")
         draw_footer(page, result)
         pages.append(page)
@@ -430,15 +430,15 @@ def window_table_pages(result) -> list[Figure]:
 
 
 def capacity_pages(result) -> list[Figure]:
-    """The seal-capacity page (drawn by :mod:`logprep.sheet_capacity`)."""
-    from logprep.sheet_capacity import seal_capacity_page
+    """The seal-capacity page (drawn by :mod:`logprep.report.page_capacity`)."""
+    from logprep.report.page_capacity import seal_capacity_page
 
     return [seal_capacity_page(result)]
 
 
 def smear_pages(result) -> list[Figure]:
-    """The shale-smear page (drawn by :mod:`logprep.sheet_smear`)."""
-    from logprep.sheet_smear import smear_page
+    """The shale-smear page (drawn by :mod:`logprep.report.page_smear`)."""
+    from logprep.report.page_smear import smear_page
 
     return smear_page(result)
 
@@ -449,7 +449,7 @@ EXTRA_PAGES: list[Callable[[object], list[Figure]]] = [capacity_pages, smear_pag
 
 
 def build_sheet(result) -> list[Figure]:
-    """The screening sheet for one :class:`~logprep.pipeline.WellScreening`."""
+    """The screening sheet for one :class:`~logprep.run.pipeline.WellScreening`."""
     pages = [overview_page(result)]
     for make in EXTRA_PAGES:
         pages += make(result)
