@@ -7,7 +7,8 @@ Reads labelled open wells (never copied into the repository):
   ``FORCE_2020_LITHOFACIES_LITHOLOGY`` (Bormann, Aursand, Dilib, Dischington & Manral
   2020, FORCE Machine Learning Competition, doi:10.5281/zenodo.4351156);
 * KGS Hugoton/Panoma wells (``labelled/kgs_panoma/panoma_data__data.csv``), core facies,
-  GR only: a second check in a different basin (Kansas Geological Survey data).
+  GR and photoelectric factor (the file's neutron-density values are derived curves,
+  not read): a second check in a different basin (Kansas Geological Survey data).
 
 Each well is screened as a user would (``screen_column``: QC, zoned picks, Vsh, rock
 classes, unusable intervals, blocking: the layers written to ``layers.csv``) and scored
@@ -103,7 +104,8 @@ def kgs_wells(root: Path):
     for name, g in df.groupby("Well Name", sort=False):
         g = g.drop_duplicates("Depth").sort_values("Depth")
         well = WellLog(name=name, source=f"{path}#{name}", sha256="", depth_m=g["Depth"].to_numpy(),
-                       curves={"GR": g["GR"].to_numpy()}, units={"GR": "API"}, depth_unit="M",
+                       curves={"GR": g["GR"].to_numpy(), "PE": g["PE"].to_numpy()},
+                       units={"GR": "API", "PE": "B/E"}, depth_unit="M",
                        gr_mnemonic="GR")
         yield well, np.array([KGS_GROUPS.get(int(v), "other") for v in g["Facies"]], dtype=object)
 
@@ -167,7 +169,7 @@ def main(argv=sys.argv) -> int:
                         "chosen on the other 14: out of sample)", oos)
             print("  choices: " + "; ".join(f"{r.well}: {r.chosen}" for r in oos.itertuples()))
         kgs = pd.DataFrame([score(w, lab, base) for w, lab in kgs_wells(root)])
-        print_table("KGS Panoma (GR only, different basin; never used to choose anything)", kgs)
+        print_table("KGS Panoma (GR and PE, different basin; never used to choose anything)", kgs)
     return 0
 
 

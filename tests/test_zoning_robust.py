@@ -5,7 +5,7 @@ import numpy as np
 import pandas as pd
 import pytest
 
-from logprep.endpoints import merge_short_zones, one_sided_note, pick_endpoints
+from logprep.clay.endpoints import merge_short_zones, one_sided_note, pick_endpoints
 from logprep.errors import SettingsError
 
 

@@ -17,7 +17,9 @@ The classes (:data:`ROCK_CLASSES`) and the rules:
 * ``limestone`` (chalk included: both are calcite): apparent matrix density below the
   calcite-dolomite midpoint and apparent matrix volumetric cross-section ``Umaa`` above
   the dolomite-calcite midpoint, in rock that is clean on the GR.  Needs the PEF: without
-  it calcite and a slightly shaly quartz sand give the same neutron-density answer.
+  it calcite and a slightly shaly quartz sand give the same neutron-density answer.  With
+  a PEF but no density and neutron, a clean rock whose Pe is above the dolomite-calcite
+  midpoint (4.11 b/e) is limestone.
 * ``dolomite``: apparent matrix density above the calcite-dolomite midpoint, ``Umaa``
   between the quartz-dolomite and dolomite-calcite midpoints, clean on the GR; needs PEF.
 * ``tuff`` is a class name for described rock only: the North Sea tuffs read like shale
@@ -42,8 +44,10 @@ from __future__ import annotations
 
 import numpy as np
 
-ROCK_CLASSES = ("limestone", "dolomite", "coal", "anhydrite", "halite", "tuff")
-"""Rock classes besides the clay-volume classes; never counted as reservoir by default."""
+from logprep.model import ROCK_CLASSES
+
+__all__ = ["ROCK_CLASSES", "classify_rock", "apparent_matrix_density", "apparent_matrix_u",
+           "missing_curve_notes"]
 
 # ---------------------------------------------------------------- published responses
 # name: (bulk density g/cm3, neutron limestone-scale v/v, slowness us/ft, Pe b/e, U b/cm3)
@@ -101,6 +105,8 @@ RHOMAA_DOLOMITE_ANHYDRITE = 0.5 * (MINERALS["dolomite"][0] + MINERALS["anhydrite
 RHOMAA_QUARTZ_CALCITE = 0.5 * (MINERALS["quartz"][0] + MINERALS["calcite"][0])
 UMAA_DOLOMITE_CALCITE = 0.5 * (MINERALS["dolomite"][4] + MINERALS["calcite"][4])
 UMAA_QUARTZ_DOLOMITE = 0.5 * (MINERALS["quartz"][4] + MINERALS["dolomite"][4])
+PE_DOLOMITE_CALCITE = 0.5 * (MINERALS["dolomite"][3] + MINERALS["calcite"][3])
+"""4.11 b/e: above it a clean rock's Pe is nearer calcite than dolomite (or quartz, 1.81)."""
 
 
 def density_porosity_limestone(rhob_g_cm3, rho_fluid_g_cm3: float = RHO_FLUID_G_CM3):
@@ -212,6 +218,9 @@ def classify_rock(*, rhob_g_cm3=None, nphi_v_v=None, pef_b_e=None, igr=None,
         halite = low_h & (np.abs(rhob - MINERALS["halite"][0]) <= HALITE_RHOB_TOL) & pe_near("halite")
         limestone = (has_pef & clean & (umaa >= UMAA_DOLOMITE_CALCITE)
                      & (rhomaa < RHOMAA_CALCITE_DOLOMITE) & (rhomaa >= RHOMAA_QUARTZ_CALCITE - 0.1))
+        # PEF without density and neutron: a clean rock reading nearer calcite's Pe
+        pe_only = has_pef & ~(np.isfinite(rhob) & np.isfinite(nphi))
+        limestone |= pe_only & clean & (pef >= PE_DOLOMITE_CALCITE)
         dolomite = (has_pef & clean & (rhomaa >= RHOMAA_CALCITE_DOLOMITE)
                     & (rhomaa < RHOMAA_DOLOMITE_ANHYDRITE)
                     & (umaa >= UMAA_QUARTZ_DOLOMITE) & (umaa < UMAA_DOLOMITE_CALCITE))

@@ -201,7 +201,9 @@ def sand_windows(layers: Layers, throw_max_m: float, lithology: str = "sand") ->
     """
     if throw_max_m <= 0:
         raise ValueError("throw_max_m must be positive")
-    idx = [i for i, lith in enumerate(layers.lithology) if lith == lithology]
+    # reservoir layers (default: the sand layers); another name asks for that class alone
+    idx = (list(np.flatnonzero(layers.reservoir)) if lithology == "sand"
+           else [i for i, lith in enumerate(layers.lithology) if lith == lithology])
     bounds, clay = cumulative_clay(layers)
     rows = []
     for fi in idx:

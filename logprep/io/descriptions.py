@@ -22,9 +22,9 @@ from pathlib import Path
 import numpy as np
 import pandas as pd
 
-from logprep.csvtable import read_csv_table
+from logprep.io.csvtable import read_csv_table
 from logprep.errors import LogprepError
-from logprep.tops import well_key
+from logprep.io.tops import well_key
 
 KEYWORDS: list[tuple[str, str]] = [
     (r"sand(stone)?\s*/\s*shale|shaly\s+sand|interbed|heterolith|sand\w*\s+and\s+shale", "sandy shale"),

@@ -18,7 +18,9 @@ from __future__ import annotations
 
 import numpy as np
 
-NO_DATA = "no data"
+from logprep.model import NO_DATA
+
+__all__ = ["NO_DATA", "assign_rock", "class_boundaries_m", "layer_shares", "sample_classes"]
 
 
 def _runs(values) -> list[tuple[int, int, object]]:

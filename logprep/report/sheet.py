@@ -21,8 +21,9 @@ from matplotlib.patches import Patch
 
 from logprep import __version__
 from logprep.report.caution import CAUTION
+from logprep.report.rockdraw import ROCK_COLOURS, hatch_no_data_field, hatch_no_data_layers, rock_legend_handles
 
-LITHOLOGY_COLOURS = {"sand": "#F0E442", "heterolith": "#E69F00", "shale": "#8C8C8C"}
+LITHOLOGY_COLOURS = {"sand": "#F0E442", "heterolith": "#E69F00", "shale": "#8C8C8C", **ROCK_COLOURS}
 SGR_CONTOURS_PCT = (10, 20, 30, 40, 60)
 PAGE_SIZE_IN = (16.5, 11.7)  # A3 landscape
 ROWS_PAGE1 = 22
@@ -94,6 +95,7 @@ def draw_layer_track(ax, result) -> None:
     L = result.layers
     for top, base, lith in zip(L.top_m, L.base_m, L.lithology):
         ax.axhspan(top, base, color=LITHOLOGY_COLOURS[lith], lw=0)
+    hatch_no_data_layers(ax, L)
     if result.qc_flags:
         bad = np.zeros(result.depth_m.size, dtype=bool)
         for mask in result.qc_flags.values():
@@ -212,6 +214,7 @@ def draw_triangle(ax, result, labelled=()) -> None:
     s = result.settings
     im = draw_field(ax, result.grid, threshold_pct=s.capacity.sgr_threshold_pct, throw_max_m=s.field.throw_max_m,
                     windows=result.windows, labelled=labelled)
+    hatch_no_data_field(ax, result.grid, result.layers)
     draw_sgr_colourbar(ax, im)
     ax.set_xlabel("Throw (m); normal fault, hanging wall down")
     ax.set_title(f"Triangle diagram: SGR from {result.grid.source}, sand-sand windows outlined",
@@ -234,11 +237,12 @@ def draw_legend(ax, result) -> None:
         Patch(facecolor=NO_DATA, edgecolor="#666666", label="slipped interval leaves the log"),
     ]
     handles += [Patch(facecolor=c, edgecolor="#666666", label=f"layer: {n}")
-                for n, c in LITHOLOGY_COLOURS.items()]
+                for n, c in LITHOLOGY_COLOURS.items() if n not in ROCK_COLOURS]
+    handles += rock_legend_handles(result.layers)
     ax.legend(handles=handles, loc="upper left", ncol=2, fontsize=8, frameon=False,
               title="Triangle diagram and layers", title_fontsize=9)
     L = result.layers
-    sand = np.array(L.lithology) == "sand"
+    sand = np.asarray(L.reservoir, dtype=bool)  # reservoir layers (default: sand)
     cross = result.windows[~result.windows["self_juxtaposed"]]
     low = cross[cross["sgr_min_pct"] < result.settings.capacity.sgr_threshold_pct]
     lines = [
