@@ -12,8 +12,18 @@ def text_boxes(fig) -> list[tuple[str, object]]:
     canvas = FigureCanvasAgg(fig)
     canvas.draw()
     renderer = canvas.get_renderer()
+    # tick labels of ticks outside the view are kept as visible Text objects but not drawn
+    drawn, all_ticks = set(), set()
+    for ax in fig.axes:
+        for axis in (ax.xaxis, ax.yaxis):
+            for tick in axis.get_major_ticks() + axis.get_minor_ticks():
+                all_ticks.update({id(tick.label1), id(tick.label2)})
+            for tick in (axis._update_ticks() if ax.axison and axis.get_visible() else []):
+                drawn.update({id(tick.label1), id(tick.label2)})
     out = []
     for t in fig.findobj(Text):
+        if id(t) in all_ticks and id(t) not in drawn:
+            continue
         if not t.get_visible() or not t.get_text().strip():
             continue
         if t.axes is not None and not t.axes.get_visible():

@@ -31,6 +31,10 @@ MONO_ADVANCE_EM = 1233 / 2048  # DejaVu Sans Mono advance width, ems
 TABLE_HEAD = ("well / pair", "status", "worst", "layers", "sands", "leak", "uncert.", "seal",
               "low SGR %", "oil col m", "CO2 col m")
 NAME_CHARS = 24
+MAX_FAIL_LINES = 10
+PITCH_EM = 1.2 * 1.17
+"""Line pitch of multi-line text in ems: linespacing 1.2 times DejaVu's line height (about
+1.17 em), kept safe so the estimate never falls short."""
 
 
 def _cell(value, digits: int = 1) -> str:
@@ -148,29 +152,31 @@ def overview_figure(rows: list[OverviewRow], verdict_rule: str = "") -> Figure:
         fig.text(0.03, 0.13, note, fontsize=6.5, color="#444444", parse_math=False)
 
     left, top, bottom = 0.39, 0.89, 0.2
-    height_pt = (top - bottom) * fig.get_figheight() * 72
+    fig_h_pt = fig.get_figheight() * 72
+    height_pt = (top - bottom) * fig_h_pt
     width_pt = (0.985 - left) * fig.get_figwidth() * 72
-    ordered = worst_first(rows)
-    lines = table_lines(ordered)
-    size = max(5.0, min(FONT_PT, width_pt / (max(map(len, lines)) * MONO_ADVANCE_EM),
-                        height_pt / (1.45 * (len(lines) + 1))))
-    row_pt = 1.45 * size
+    lines = table_lines(worst_first([r for r in rows if r.status == "ok"]))
     fail_lines = [f"{r.name}: {r.message}" for r in failed]
-    room = int(height_pt / row_pt) - 1 - (len(fail_lines) + 2 if fail_lines else 0)
-    room = max(5, room)
+    n_fail = min(len(fail_lines), MAX_FAIL_LINES)
+    fail_block = (n_fail + 1 + (len(fail_lines) > n_fail) + 1) if fail_lines else 0
+    size = max(5.0, min(FONT_PT, width_pt / (max(map(len, lines)) * MONO_ADVANCE_EM),
+                        height_pt / (PITCH_EM * (len(lines) + 1 + fail_block))))
+    pitch_pt = PITCH_EM * size
+    room = max(3, int(height_pt / pitch_pt) - 1 - fail_block)
     shown = lines[: room + 1]
     more = len(lines) - len(shown)
     text = "\n".join(shown) + (f"\n... {more} more row(s): see overview.html or summary.csv"
                                if more else "")
     fig.text(left, top, text, family="DejaVu Sans Mono", fontsize=size, va="top",
-             linespacing=1.45, parse_math=False)
+             linespacing=1.2, parse_math=False)
     if fail_lines:
-        max_chars = int(width_pt / (6.0 * MONO_ADVANCE_EM))
-        shown_fail = [f if len(f) <= max_chars else f[: max_chars - 1] + "~" for f in fail_lines]
-        y = top - (len(shown) + (1 if more else 0) + 1) * row_pt / (fig.get_figheight() * 72)
-        fig.text(left, y, "Failed:\n" + "\n".join(shown_fail[: max(1, room // 3)]),
-                 family="DejaVu Sans Mono", fontsize=6.0, va="top", color="#7A1F00",
-                 linespacing=1.4, parse_math=False)
+        max_chars = int(width_pt / (size * MONO_ADVANCE_EM))
+        cut = [f if len(f) <= max_chars else f[: max_chars - 1] + "~" for f in fail_lines[:n_fail]]
+        if len(fail_lines) > n_fail:
+            cut.append(f"... {len(fail_lines) - n_fail} more: see overview.html or summary.csv")
+        y = top - (len(shown) + (1 if more else 0) + 1) * pitch_pt / fig_h_pt
+        fig.text(left, y, f"Failed ({len(fail_lines)}):\n" + "\n".join(cut), family="DejaVu Sans Mono",
+                 fontsize=size, va="top", color="#7A1F00", linespacing=1.2, parse_math=False)
     fig.text(0.03, 0.03, "CAUTION: " + CAUTION, fontsize=7.5, va="bottom", wrap=True,
              color="#7A1F00", parse_math=False,
              bbox={"facecolor": "#FFF4E5", "edgecolor": "#D55E00", "pad": 4})
