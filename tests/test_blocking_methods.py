@@ -9,7 +9,7 @@ from hypothesis import given, settings, strategies as st
 
 from conftest import open_logs_path
 from logprep.layers.blocking import (
-    BLOCKING_METHODS, block_changepoint, block_cutoff, block_with_boundaries, classify_vsh,
+    BLOCKING_METHODS, block_changepoint, block_with_boundaries, classify_vsh,
     net_to_gross, sample_edges_m,
 )
 from logprep.changepoint import noise_sd, pelt_mean_breaks

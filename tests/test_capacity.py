@@ -12,7 +12,6 @@ that equation's published tables, cross-checked here against the library.
 import sys
 
 import numpy as np
-import pandas as pd
 import pytest
 
 from logprep.fault.capacity import (
@@ -24,7 +23,7 @@ from logprep.fault.envelope import (
 from logprep.errors import SettingsError
 from logprep.fault.juxtaposition import WINDOW_COLUMNS, sand_windows, sgr_layered_pct
 from logprep.model import Layers, WellLog
-from logprep.units import G_MPS2, M_PER_FT, PA_PER_BAR, PA_PER_PSI, pressure
+from logprep.units import G_MPS2, M_PER_FT, PA_PER_PSI, pressure
 
 # METHODS.md s.4, table of FZP (bar) at SGR for the three burial classes (Bretan et al.
 # 2003 envelope [V formula], numbers recomputed there).  Some entries differ from the

@@ -12,7 +12,8 @@ from logprep.cli import main
 from logprep.fault.juxtaposition import WINDOW_COLUMNS
 from logprep.run.pipeline import screen_file
 from logprep.run.settings import ScreenSettings
-from logprep.report.sheet import TABLE_HEAD, build_sheet, window_rows
+from logprep.report.draw import TABLE_HEAD, window_rows
+from logprep.report.sheet import build_sheet
 
 
 @pytest.fixture(scope="module")

@@ -11,7 +11,7 @@ import pandas as pd
 import pytest
 
 from conftest import open_logs_path
-from logprep.clay.endpoints import changepoint_bounds, pick_endpoints, zone_bounds
+from logprep.clay.endpoints import changepoint_bounds, pick_endpoints
 from logprep.errors import SettingsError
 from logprep.io.las import read_well
 from logprep.clay.settings import ClaySettings

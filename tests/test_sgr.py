@@ -12,7 +12,7 @@ import numpy as np
 import pytest
 from hypothesis import given, settings, strategies as st
 
-from logprep.layers.blocking import block_cutoff, sample_edges_m
+from logprep.layers.blocking import block_cutoff
 from logprep.fault.juxtaposition import (
     JUXTAPOSITION_CLASSES, cumulative_clay, juxtaposition_grid, sgr_layered_pct,
 )

@@ -11,8 +11,7 @@ import pytest
 
 from logprep.fault.juxtaposition import sand_windows
 from logprep.model import Layers
-from logprep.fault.sgr import sgr_field_pct, throw_axis_m
-from logprep.fault.juxtaposition import cumulative_clay
+from logprep.fault.sgr import throw_axis_m
 from logprep.fault.smear import (
     SMEAR_COLUMNS, clay_smear_potential_m, shale_smear_factor, smear_at, smear_fields,
     window_smear,

@@ -12,7 +12,7 @@ from __future__ import annotations
 
 import hashlib
 import heapq
-from typing import Callable
+from collections.abc import Callable
 
 import numpy as np
 

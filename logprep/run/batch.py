@@ -4,7 +4,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 from pathlib import Path
-from typing import Callable, Iterable
+from collections.abc import Callable, Iterable
 
 from logprep.run.config import SETTINGS_FILE_NAME, write_settings
 from logprep.errors import LogprepError

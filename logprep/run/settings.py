@@ -116,7 +116,7 @@ class ScreenSettings:
         """``{field: value}`` over every group."""
         return {k: v for group in self.to_dict().values() for k, v in group.items()}
 
-    def updated(self, **changes) -> "ScreenSettings":
+    def updated(self, **changes) -> ScreenSettings:
         """A copy with some settings changed (flat field names or whole groups), validated
         again."""
         groups = {g: getattr(self, g) for g in GROUPS}
