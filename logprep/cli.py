@@ -7,6 +7,7 @@ import sys
 import warnings
 
 from logprep import __version__
+from logprep.cli_rock import print_rock_summary, rock_options, tune_rock_options
 from logprep.errors import LogprepError
 
 # the science is imported only where a command or its options need it (fast --version)
@@ -134,32 +135,6 @@ def _clay_quality_options(p: argparse.ArgumentParser, d) -> None:
     g.add_argument("--drho-max", dest="drho_max_g_cm3", type=float, metavar="G_CM3",
                    help="density correction |DRHO| above which neutron-density is not used, "
                         f"g/cm3 (default: {d.clay.drho_max_g_cm3})")
-    from logprep.clay.endpoints import ONE_SIDED
-
-    g.add_argument("--one-sided", dest="one_sided", choices=list(ONE_SIDED),
-                   help="lines of a zone with too little contrast: recentre on its own side, or "
-                        f"take the well's lines (default: {d.clay.one_sided})")
-    g = p.add_argument_group("rock classes and unusable intervals")
-    g.add_argument("--rock-classes", dest="rock_classes", action=argparse.BooleanOptionalAction,
-                   help="recognise limestone/chalk, dolomite, coal, anhydrite, halite from "
-                        "density, neutron and PEF (default: on)")
-    g.add_argument("--bad-hole", dest="bad_hole_in", type=float, metavar="INCHES",
-                   help="caliper over bit size beyond which the logs are unusable "
-                        f"(default: {d.clay.bad_hole_in})")
-    g.add_argument("--gap-limit", dest="gap_limit_m", type=float, metavar="M",
-                   help=f"Vsh interpolated over a longer gap is unusable (default: {d.clay.gap_limit_m})")
-    g.add_argument("--top-hole-run", dest="top_hole_run_m", type=float, metavar="M",
-                   help="the top hole ends where density, neutron or sonic are measured this "
-                        f"long; GR above is unusable (default: {d.clay.top_hole_run_m})")
-    g.add_argument("--max-unusable", dest="max_unusable", type=float, metavar="FRACTION",
-                   help="a layer with a larger unusable share is 'no data' "
-                        f"(default: {d.layers.max_unusable})")
-    g.add_argument("--reservoir", dest="reservoir_classes", metavar="CLASSES",
-                   help="layer classes counted as reservoir, comma-separated, e.g. "
-                        f"sand,limestone (default: {','.join(d.layers.reservoir_classes)})")
-    g.add_argument("--thin-bed", dest="thin_bed_m", type=float, metavar="M",
-                   help="a window sand thinner than this is marked thin in juxtapositions.csv "
-                        f"(default: {d.layers.thin_bed_m})")
 
 
 def _survey_options(p: argparse.ArgumentParser, d) -> None:
@@ -182,8 +157,8 @@ def _pair_options(p: argparse.ArgumentParser, d) -> None:
                         f"hanging-wall well, or average the two (default: {d.field.pair_slip_source})")
 
 
-SETTINGS_OPTION_GROUPS = [_clay_options, _clay_quality_options, _blocking_options, _fault_options,
-                          _capacity_options, _survey_options, _pair_options]
+SETTINGS_OPTION_GROUPS = [_clay_options, _clay_quality_options, rock_options, _blocking_options,
+                          _fault_options, _capacity_options, _survey_options, _pair_options]
 """Each adds one group of options whose ``dest`` is a :class:`ScreenSettings` field and
 whose default is None (not given); add a function here for a new group."""
 
@@ -332,19 +307,11 @@ def cmd_tune(args) -> int:
         min_beds_m=ranges.get("bed_sweep", DEFAULT_MIN_BEDS_M),
         descriptions=args.rock_file, label_curve=args.label_curve,
     )
-    paths = write_sweep(sweep, args.out)
-    t = sweep.table
+    paths, t = write_sweep(sweep, args.out), sweep.table
     print(f"{sweep.reference.well.name}: {len(t) - 1} settings swept; "
           f"{int((t['verdicts_flipped'] == 0).sum()) - 1} keep every window verdict of the reference; "
           f"table {paths['tune.csv']}, figure {paths['tune.pdf']}")
-    if "rock_balanced_accuracy" in t:
-        best = t[t["best_rock_match"]].iloc[0]
-        ref = t[t["is_reference"]].iloc[0]
-        print(f"against the described rock: reference balanced accuracy "
-              f"{ref['rock_balanced_accuracy']:.2f} (precision {ref['rock_precision']:.2f}); best "
-              f"{best['rock_balanced_accuracy']:.2f} at sand {best['sand_cutoff']:g}, shale "
-              f"{best['shale_cutoff']:g}, min bed {best['min_bed_m']:g} m "
-              f"({int(t['best_rock_match'].sum())} setting(s); column best_rock_match)")
+    print_rock_summary(t)
     return EXIT_OK
 
 
@@ -408,12 +375,7 @@ def build_parser() -> argparse.ArgumentParser:
                    help="shale cut-offs to try (default: 0.5:0.8:0.05)")
     p.add_argument("--bed-sweep", dest="bed_sweep", metavar="RANGE",
                    help="minimum bed thicknesses to try, metres (default: 0.5,1,2,4)")
-    p.add_argument("--rock", dest="rock_file", metavar="FILE.csv",
-                   help="core or cuttings description (top_m, base_m, lithology[, well]): score "
-                        "every setting's sands against it (precision, recall, balanced accuracy)")
-    p.add_argument("--label-curve", dest="label_curve", metavar="MNEMONIC",
-                   help="lithology label curve of the well to score against (default: a known "
-                        "label curve when the well has one)")
+    tune_rock_options(p)
     _add_config_option(p)
     _add_screen_options(p)
     p.set_defaults(func=cmd_tune)
