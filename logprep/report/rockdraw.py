@@ -69,7 +69,7 @@ def rock_legend_handles(layers) -> list[Patch]:
     for name, colour in ROCK_COLOURS.items():
         if name in present:
             hatch = NO_DATA_HATCH if name == "no data" else None
-            label = ("layer: no data (unusable logs; SGR resting on it hatched)"
+            label = ("layer: no data (hatched)"
                      if name == "no data" else f"layer: {name}")
             out.append(Patch(facecolor=colour, edgecolor=NO_DATA_INK, hatch=hatch, label=label))
     return out
