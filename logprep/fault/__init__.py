@@ -1,0 +1,1 @@
+"""Fault stage: juxtaposition, SGR, seal capacity and fault-rock properties."""

@@ -1,0 +1,1 @@
+"""Readers: LAS logs, tops, surveys, pairs and faults tables."""

@@ -1,0 +1,1 @@
+"""Running screenings: settings, the one-well pipeline, batches, pairs and faults."""
