@@ -176,7 +176,7 @@ def window_sgr_min_pct(layers: Layers, throw_max_m: float, lithology: str = "san
     """
     idx = np.array([i for i, x in enumerate(layers.lithology) if x == lithology], dtype=np.intp)
     F, H = (m.ravel() for m in np.meshgrid(idx, idx, indexing="ij"))
-    bounds, clay = cumulative_clay(layers)
+    _, clay = cumulative_clay(layers)
     a, b, c, e = layers.top_m[F], layers.base_m[F], layers.top_m[H], layers.base_m[H]
     lo = np.maximum(a - e, 0.0)
     cap = np.minimum(b - c, float(throw_max_m))

@@ -118,13 +118,13 @@ class Spreads:
             raise SettingsError(f"uncertainty min_bed_spread_frac must be within 0-1 (got {self.min_bed_spread_frac:g})")
 
     @classmethod
-    def zero(cls, transform: str, **kw) -> "Spreads":
+    def zero(cls, transform: str, **kw) -> Spreads:
         """No spread at all: every realisation is the deterministic screening."""
         zeros = {f.name: 0.0 for f in fields(cls) if f.name.endswith(
             ("_spread", "_spread_pct", "_spread_api", "_spread_m", "_frac"))}
-        return cls(transform_weights=((transform, 1.0),), draw_throw=False, **(zeros | kw))
+        return cls(**(zeros | {"transform_weights": ((transform, 1.0),), "draw_throw": False} | kw))
 
-    def updated(self, **changes) -> "Spreads":
+    def updated(self, **changes) -> Spreads:
         return replace(self, **changes)
 
 

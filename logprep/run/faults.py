@@ -209,9 +209,10 @@ class FaultResult:
     pair_index: tuple
 
 
-def screen_fault(spec: FaultSpec, fw, hw, settings, spreads: Spreads = Spreads()) -> FaultResult:
+def screen_fault(spec: FaultSpec, fw, hw, settings, spreads: Spreads | None = None) -> FaultResult:
     """Screen one fault: deterministic at the best throw and ``spreads.realisations``
     realisations; ``fw``/``hw`` are the screened wells (``hw`` None within one well)."""
+    spreads = spreads or Spreads()
     case = fault_case(spec, fw, hw, settings)
     base = base_inputs(spec, fw, hw, settings)
     b = base_draw(base)
@@ -271,11 +272,12 @@ UNCERTAINTY_COLUMNS = ["sgr_min_pct_p10", "sgr_min_pct_p50", "sgr_min_pct_p90", 
 """Columns appended to ``juxtapositions.csv`` with ``--uncertainty``."""
 
 
-def window_uncertainty(scr, spreads: Spreads = Spreads()) -> pd.DataFrame:
+def window_uncertainty(scr, spreads: Spreads | None = None) -> pd.DataFrame:
     """:data:`UNCERTAINTY_COLUMNS` for each sand-sand window of a screened well, over
     ``spreads.realisations`` realisations of the clay, blocking, clay-fraction inputs (the
     window spans every throw, so the throw is not drawn): the exact minimum SGR of the
     window's pair of reservoir units over all throws up to the screened maximum."""
+    spreads = spreads or Spreads()
     s = scr.settings
     model = column_model(scr)
     spec_throw = ("fixed", s.throw_max_m, None, None)
