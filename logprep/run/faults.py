@@ -207,6 +207,8 @@ class FaultResult:
     fw_layers: Layers
     hw_layers: Layers
     pair_index: tuple
+    fw_units: tuple = ((), ())
+    hw_units: tuple = ((), ())
 
 
 def screen_fault(spec: FaultSpec, fw, hw, settings, spreads: Spreads | None = None) -> FaultResult:
@@ -264,7 +266,8 @@ def screen_fault(spec: FaultSpec, fw, hw, settings, spreads: Spreads | None = No
     table = pd.DataFrame(rows, columns=FAULT_COLUMNS)
     return FaultResult(spec=spec, table=table, realisations=real, draws=draws, base=det, sensitivity=sens,
                        shift_m=case.shift_m, fw_layers=fw.layers, hw_layers=hw_layers,
-                       pair_index=tuple(int(k) for k in show))
+                       pair_index=tuple(int(k) for k in show), fw_units=case.units_fw,
+                       hw_units=case.units_hw)
 
 
 # ----------------------------------------------------------------------------- one well, all throws

@@ -1,0 +1,1 @@
+"""Reports: sheet pages, drawing helpers, writers."""
