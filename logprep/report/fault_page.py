@@ -215,3 +215,9 @@ def footer_text(res, settings) -> str:
             f"minimum SGR >= {settings.sgr_threshold_pct:g} %.  Fault dip {spec.fault_dip_deg:g} deg"
             f"{'' if spec.closure_m is None else f'; closure {spec.closure_m:g} m caps the columns'}; "
             f"tie shift {res.shift_m:.2f} m.")
+
+
+def fault_pages(result) -> list[Figure]:
+    """The pages of the faults whose footwall is this well (``result.faults``; none for a
+    well screened without a faults file)."""
+    return [fault_page(r, r.grid, result.settings) for r in getattr(result, "faults", ())]

@@ -209,6 +209,7 @@ class FaultResult:
     pair_index: tuple
     fw_units: tuple = ((), ())
     hw_units: tuple = ((), ())
+    grid: object = None
 
 
 def screen_fault(spec: FaultSpec, fw, hw, settings, spreads: Spreads | None = None) -> FaultResult:
