@@ -240,3 +240,16 @@ def test_draws_of_one_input_do_not_depend_on_another_spread():
     assert np.array_equal(a["throw_m"], b["throw_m"]) and np.array_equal(a["gr_clean_fw"], b["gr_clean_fw"])
     assert (b["sand_cutoff"] == 0.35).all() and (b["burial_offset_m"] == 0).all()
     assert verdict(np.array([20.0]), 15, 20)[0] == "seal"
+
+
+def test_an_all_shale_column_has_no_pairs_and_no_error():
+    from dataclasses import replace
+
+    model = replace(three_bed_model(), gr_api=np.full(2000, 110.0))
+    empty = (np.array([]), np.array([]))
+    case = FaultCase(fw_model=model, hw_model=None, shift_m=0.0, units_fw=empty, units_hw=empty)
+    base = BaseInputs(throw=("uniform", 85.0, 70.0, 100.0), gr_clean=(20.0, 20.0), gr_shale=(120.0, 120.0),
+                      transform="linear", sand_cutoff=0.35, shale_cutoff=0.65, min_bed_m=1.0)
+    real = fault_realisations(case, draw_inputs(base, Spreads(realisations=5)))
+    assert real["juxtaposed"].shape == (5, 0)
+    assert percentiles(real["sgr_min_pct"], real["juxtaposed"]).shape == (3, 0)

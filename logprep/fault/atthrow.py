@@ -130,7 +130,7 @@ def contact_free_water_m(contacts: Contacts, c, drho_kgm3, *, clay_fraction: flo
                                   np.where(ok, s1, 0.0), c, drho, sgr_scale_pct)
         fwl = np.where(ok, z0 + col, np.inf).min(axis=1, initial=np.inf)
         out.append(np.where(np.isfinite(fwl) | ~ok.any(axis=1), fwl, np.inf))
-    return np.array(out).reshape(-1, len(contacts))
+    return np.array(out, dtype=float).reshape(len(out), len(contacts))
 
 
 def units_of_layers(layers: Layers, unit_top_m, unit_base_m, lithology: str = "sand") -> np.ndarray:
