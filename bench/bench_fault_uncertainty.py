@@ -2,7 +2,7 @@
 screening, measured in the same run.
 
 Baseline: the deterministic screening of the fault's wells as the pipeline does it
-(:func:`logprep.pipeline.screen_well` of the footwall and, for a two-well fault, the
+(:func:`logprep.run.pipeline.screen_well` of the footwall and, for a two-well fault, the
 hanging-wall well, already read from LAS).  Measured: :func:`logprep.run.faults.screen_fault`
 with 1,000 realisations (draws, rebuilt columns, contacts, columns, percentiles and
 sensitivity).  Target: ratio <= 20.
@@ -14,11 +14,11 @@ from __future__ import annotations
 
 from timing import best_time_s
 
-from logprep.examples import example_logs_dir
 from logprep.fault.uncertainty import Spreads
+from logprep.io.examples import example_logs_dir
 from logprep.io.faults import FaultSpec
-from logprep.lasread import read_well
-from logprep.pipeline import ScreenSettings, screen_well
+from logprep.io.las import read_well
+from logprep.run.pipeline import ScreenSettings, screen_well
 from logprep.run.faults import screen_fault
 
 N = 1000

@@ -5,7 +5,7 @@ import re
 import pandas as pd
 import pytest
 
-from logprep.caution import CAUTION
+from logprep.report.caution import CAUTION
 from logprep.fault.uncertainty import Spreads
 from logprep.run.fault_batch import faults_table, screen_faults, write_faults
 from logprep.run.faults import FAULT_COLUMNS
@@ -13,7 +13,7 @@ from logprep.run.faults import FAULT_COLUMNS
 
 @pytest.fixture(scope="module")
 def demo(example_dir):
-    from logprep.pipeline import ScreenSettings
+    from logprep.run.pipeline import ScreenSettings
 
     s = ScreenSettings(tops_file=str(example_dir / "tops.csv"))
     errors = []
@@ -48,7 +48,7 @@ def test_written_table_and_one_page_pdf_per_fault(demo, tmp_path):
 
 
 def test_fault_page_carries_sentences_bars_and_the_caution(demo):
-    from logprep.report.fault_page import fault_page, pair_sentence
+    from logprep.report.page_fault import fault_page, pair_sentence
 
     s, res, _ = demo
     fig = fault_page(res[0], res[0].grid, s)
@@ -62,7 +62,7 @@ def test_fault_page_carries_sentences_bars_and_the_caution(demo):
 
 
 def test_a_fault_with_a_missing_well_is_reported_and_the_others_run(example_dir, tmp_path):
-    from logprep.pipeline import ScreenSettings
+    from logprep.run.pipeline import ScreenSettings
 
     f = tmp_path / "faults.csv"
     f.write_text("name,footwall,hangingwall,shift_m,throw_m\nGhost,HRM-9,,,20\nReal,HRM-1,,,20\n")

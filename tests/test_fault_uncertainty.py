@@ -4,7 +4,7 @@ reproducible tables, and the exact contact geometry against independent routes."
 import numpy as np
 import pytest
 
-from logprep.capacity import CapacityParams, verdict
+from logprep.fault.capacity import CapacityParams, verdict
 from logprep.fault.atthrow import contacts_at_throw, contact_sgr_min_pct, window_sgr_min_pct
 from logprep.fault.sensitivity import first_order_index, rank_inputs
 from logprep.fault.uncertainty import (
@@ -12,10 +12,10 @@ from logprep.fault.uncertainty import (
     percentiles, spreads_from_dict,
 )
 from logprep.errors import SettingsError
-from logprep.juxtaposition import sand_windows, sgr_layered_pct
+from logprep.fault.juxtaposition import sand_windows, sgr_layered_pct
 from logprep.model import Layers
 from logprep.run.faults import WellColumnModel, screen_fault, window_uncertainty
-from logprep.twowell import two_well_sgr_pct
+from logprep.fault.twowell import two_well_sgr_pct
 
 G = 9.80665
 
@@ -105,7 +105,7 @@ def test_throw_distributions_by_inverse_cdf():
 # ----------------------------------------------------------------------------- bundled wells
 @pytest.fixture(scope="module")
 def harrowmere(example_dir):
-    from logprep.pipeline import ScreenSettings, screen_file
+    from logprep.run.pipeline import ScreenSettings, screen_file
 
     s = ScreenSettings(tops_file=str(example_dir / "tops.csv"))
     return s, screen_file(example_dir / "HRM-2.las", s), screen_file(example_dir / "HRM-3.las", s)

@@ -2,18 +2,18 @@
 
 At a fixed throw ``t`` a footwall bed ``[a, b]`` faces a hanging-wall bed ``[c, e]`` (the
 hanging-wall well's depths, tied by ``shift_m`` = hanging-wall depth minus footwall depth
-of the same horizon, as in :mod:`logprep.twowell`) over footwall depths
+of the same horizon, as in :mod:`logprep.fault.twowell`) over footwall depths
 ``max(a, c - shift + t) <= z <= min(b, e - shift + t)``.  Along that contact the shale
 gouge ratio ``SGR = 100 (C(z) - C(z - t)) / t`` (Yielding, Freeman & Needham 1997) is
 piecewise linear in ``z``: its kinks are where an end of the slipped interval crosses a bed
 boundary of the column it is taken from.  SGR is evaluated exactly at the contact ends and
 at every kink, so its minimum over the contact and the leak-point column (convex per
-linear piece, :func:`logprep.capacity.leak_point_column_m`) are exact.  With one well
+linear piece, :func:`logprep.fault.envelope.leak_point_column_m`) are exact.  With one well
 (``hw is fw``, ``shift_m = 0``) the slipped interval lies in single beds at both ends and
 SGR is linear along the whole contact.
 
 :func:`window_sgr_min_pct` is the vectorised form of the exact window extremes of
-:func:`logprep.juxtaposition.sand_windows` (the minimum SGR of each sand pair over all
+:func:`logprep.fault.juxtaposition.sand_windows` (the minimum SGR of each sand pair over all
 throws up to a cap), used for the uncertainty of ``juxtapositions.csv``.
 
 References
@@ -31,8 +31,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from logprep.capacity import leak_point_column_m
-from logprep.juxtaposition import cumulative_clay, sgr_from_cumulative_pct
+from logprep.fault.envelope import leak_point_column_m
+from logprep.fault.juxtaposition import cumulative_clay, sgr_from_cumulative_pct
 from logprep.model import Layers
 
 
@@ -79,7 +79,7 @@ def contacts_at_throw(fw: Layers, hw: Layers, shift_m: float, throw_m: float, *,
     throw_m : float
         Vertical throw of the tie horizon (m).
     slip_source : str
-        Column the slipped interval is taken from (:data:`logprep.twowell.SLIP_SOURCES`).
+        Column the slipped interval is taken from (:data:`logprep.fault.twowell.SLIP_SOURCES`).
     """
     t = float(throw_m)
     fi = np.array([i for i, x in enumerate(fw.lithology) if x == lithology], dtype=np.intp)
@@ -166,7 +166,7 @@ _LINES = [(1, 0, "a"), (1, 0, "b"), (1, -1, "c"), (1, -1, "e"), (0, 1, "zero"), 
 
 def window_sgr_min_pct(layers: Layers, throw_max_m: float, lithology: str = "sand"):
     """Every ``lithology`` pair touching at a throw in ``(0, throw_max_m]`` with its exact
-    minimum SGR (%) over the contact area, as :func:`logprep.juxtaposition.sand_windows`
+    minimum SGR (%) over the contact area, as :func:`logprep.fault.juxtaposition.sand_windows`
     computes it, vectorised over the pairs.
 
     Returns ``(footwall_layer, hangingwall_layer, sgr_min_pct)``.  Within a pair's contact

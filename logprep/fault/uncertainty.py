@@ -30,12 +30,14 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, field, fields, replace
-from typing import Callable, Protocol
+from typing import Protocol
+from collections.abc import Callable
 
 import numpy as np
 from scipy.special import ndtri
 
-from logprep.capacity import CapacityParams, envelope_c, verdict
+from logprep.fault.capacity import CapacityParams, verdict
+from logprep.fault.envelope import envelope_c
 from logprep.errors import SettingsError
 from logprep.fault.atthrow import (
     contact_free_water_m, contact_sgr_min_pct, contacts_at_throw, group_min, units_of_layers,

@@ -1,6 +1,6 @@
 """The faults file: one named fault per row, screened at its own throw.
 
-CSV (read like the other hand-made tables, see :mod:`logprep.csvtable`: any common
+CSV (read like the other hand-made tables, see :mod:`logprep.io.csvtable`: any common
 encoding, comma, semicolon or tab, decimal comma with semicolons) or TOML with one
 ``[[fault]]`` table per fault.  Keys (CSV column names):
 
@@ -31,6 +31,7 @@ from dataclasses import dataclass
 from pathlib import Path
 
 from logprep.errors import LogprepError
+from logprep.io.csvtable import read_csv_table
 
 THROW_DISTRIBUTIONS = ("fixed", "triangular", "uniform", "normal")
 """How the throw of a fault is drawn (see :func:`logprep.fault.uncertainty.draw_throw_m`)."""
@@ -164,8 +165,6 @@ def fault_from_row(row: dict, where: str) -> FaultSpec:
 
 
 def _rows_csv(path: Path) -> list[tuple[dict, str]]:
-    from logprep.csvtable import read_csv_table
-
     df = read_csv_table(path, FaultsError, "faults file", dtype=str, keep_default_na=False,
                         comment="#")
     df.columns = [str(c).strip().lower() for c in df.columns]

@@ -11,7 +11,7 @@ from __future__ import annotations
 
 from dataclasses import replace
 from pathlib import Path
-from typing import Callable, Iterable
+from collections.abc import Callable, Iterable
 
 import pandas as pd
 
@@ -29,7 +29,7 @@ def fault_grid(res: FaultResult, fw, settings):
     well, the two-well field of the pair otherwise."""
     if not res.spec.two_wells:
         return fw.grid
-    from logprep.twowell import two_well_field
+    from logprep.fault.twowell import two_well_field
 
     import numpy as np
 
@@ -40,7 +40,7 @@ def fault_grid(res: FaultResult, fw, settings):
 
 
 def _find(name: str, files: list[Path], names: dict[Path, str], spec: FaultSpec) -> Path:
-    from logprep.tops import well_key
+    from logprep.io.tops import well_key
 
     key = well_key(name)
     for f in files:
@@ -63,10 +63,10 @@ def screen_faults(
     Returns the results of the faults that ran (each with its ``grid`` for the page); a
     failing fault is reported through ``on_error`` and left out.
     """
-    from logprep.batch import find_las_files
-    from logprep.lasread import read_well_name
-    from logprep.pipeline import screen_file
-    from logprep.tops import read_tops
+    from logprep.io.las import read_well_name
+    from logprep.io.tops import read_tops
+    from logprep.run.batch import find_las_files
+    from logprep.run.pipeline import screen_file
 
     spreads = spreads or Spreads()
     faults = read_faults(faults_file)
@@ -113,8 +113,8 @@ def faults_table(results: list[FaultResult]) -> pd.DataFrame:
 def write_faults(results: list[FaultResult], out_dir: str | Path, settings, *, sheets: bool = True) -> list[Path]:
     """Write ``faults.csv`` and, with ``sheets``, ``faults/<name>.pdf``/``.png`` (one page
     per fault); each file atomically.  Returns the paths written."""
-    from logprep.outputs import csv_bytes, folder_name, pdf_bytes, png_bytes, write_bytes_atomic
-    from logprep.report.fault_page import fault_page
+    from logprep.report.page_fault import fault_page
+    from logprep.report.writers import csv_bytes, folder_name, pdf_bytes, png_bytes, write_bytes_atomic
 
     out = Path(out_dir)
     written = [out / FAULTS_FILE_NAME]
@@ -133,7 +133,7 @@ def write_faults(results: list[FaultResult], out_dir: str | Path, settings, *, s
 
 def faults_by_footwall(results: list[FaultResult]) -> dict[str, tuple[FaultResult, ...]]:
     """Fault results by the footwall well's name key (for the fault page of a well's sheet)."""
-    from logprep.tops import well_key
+    from logprep.io.tops import well_key
 
     by: dict[str, list] = {}
     for r in results:

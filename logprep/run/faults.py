@@ -13,20 +13,21 @@ from dataclasses import dataclass, replace
 import numpy as np
 import pandas as pd
 
-from logprep.blocking import block_with_boundaries, fill_gaps
-from logprep.capacity import capacity_params, co2_density_kgm3, depth_datum, geothermal_temperature_k, \
-    hydrostatic_pressure_pa
+from logprep.clay.qc import ND_ONLY, REPLACED, any_flag
+from logprep.clay.vshale import gamma_ray_index, get_combination, get_transform
 from logprep.errors import LogprepError
-from logprep.fault.atthrow import units_of_layers, window_sgr_min_pct, group_min
+from logprep.fault.atthrow import group_min, units_of_layers, window_sgr_min_pct
+from logprep.fault.capacity import verdict
+from logprep.fault.envelope import co2_density_kgm3, depth_datum, geothermal_temperature_k, hydrostatic_pressure_pa
 from logprep.fault.sensitivity import rank_inputs
+from logprep.fault.settings import capacity_params
 from logprep.fault.uncertainty import (
     FLUIDS, INPUTS, BaseInputs, FaultCase, Spreads, base_draw, draw_inputs, evaluate_at_throw,
     fault_realisations, percentiles,
 )
 from logprep.io.faults import FaultSpec
+from logprep.layers.blocking import block_with_boundaries, fill_gaps
 from logprep.model import Layers
-from logprep.qc import ND_ONLY, REPLACED, any_flag
-from logprep.vshale import gamma_ray_index, get_combination, get_transform
 
 
 class FaultScreenError(LogprepError, ValueError):
@@ -87,7 +88,7 @@ class WellColumnModel:
 
 
 def column_model(scr) -> WellColumnModel:
-    """The :class:`WellColumnModel` of a :class:`~logprep.pipeline.WellScreening`."""
+    """The :class:`WellColumnModel` of a :class:`~logprep.run.pipeline.WellScreening`."""
     s = scr.settings
     flags = scr.qc_flags
     gr = np.where(any_flag(flags, REPLACED), np.nan, scr.gr_api)
@@ -139,7 +140,7 @@ def _tie_shift_m(spec: FaultSpec, fw, hw) -> float:
     if not spec.two_wells:
         return 0.0
     if spec.marker:
-        from logprep.twowell import marker_shift_m
+        from logprep.fault.twowell import marker_shift_m
 
         return marker_shift_m(fw.tops, hw.tops, spec.marker, spec.footwall, spec.hangingwall)
     return float(spec.shift_m)
@@ -148,7 +149,7 @@ def _tie_shift_m(spec: FaultSpec, fw, hw) -> float:
 def fault_case(spec: FaultSpec, fw, hw, settings) -> FaultCase:
     """The :class:`~logprep.fault.uncertainty.FaultCase` of a fault from its screened wells
     (``hw`` None for a fault within one well)."""
-    cap = capacity_params(settings)
+    cap = capacity_params(settings.capacity, settings.fault_rock)
     datum, _ = depth_datum(fw.well)
     datum = datum or 0.0
     units_fw = sand_units(fw.layers)
@@ -291,7 +292,7 @@ def window_uncertainty(scr, spreads: Spreads | None = None) -> pd.DataFrame:
     d = draw_inputs(base, spreads)
     units = sand_units(scr.layers)
     nu = len(units[0])
-    cap = capacity_params(s)
+    cap = capacity_params(s.capacity, s.fault_rock)
     n = len(d["throw_m"])
     sgr = np.full((n, nu * nu), np.nan)
     for r in range(n):
@@ -302,8 +303,6 @@ def window_uncertainty(scr, spreads: Spreads | None = None) -> pd.DataFrame:
         key = np.where((u[F] >= 0) & (u[H] >= 0), u[F] * nu + u[H], -1)
         sgr[r] = group_min(key, smin * float(d["clay_fraction"][r]), nu * nu)
     juxt = np.isfinite(sgr)
-    from logprep.capacity import verdict
-
     seal = juxt & (verdict(np.where(juxt, sgr, -1.0), cap.leak_below_pct, cap.seal_from_pct) == "seal")
     p = percentiles(sgr, juxt)
     uidx = units_of_layers(scr.layers, *units)

@@ -13,7 +13,7 @@ from __future__ import annotations
 import numpy as np
 from matplotlib.figure import Figure
 
-from logprep.caution import CAUTION
+from logprep.report.caution import CAUTION
 
 MAX_PAIRS = 10
 """Pairs drawn on the page (most often juxtaposed first); every pair is in faults.csv."""
@@ -88,8 +88,8 @@ def _spread_axis(ax, rows, name: str, unit: str, base=None, log=False, lines=())
 def draw_fault_triangle(ax, res, grid, settings, pairs=()) -> None:
     """The triangle diagram around the fault's throw range with the contacts of the pairs
     at row positions ``pairs`` of the table outlined and numbered."""
-    from logprep.sheet import draw_field, draw_sgr_colourbar
-    from logprep.sgr import contact_polygon
+    from logprep.fault.sgr import contact_polygon
+    from logprep.report.draw import draw_field, draw_sgr_colourbar
 
     lo, hi = np.percentile(res.draws["throw_m"], [0.5, 99.5])
     t_max = float(min(grid.throw_m[-1], max(2.0 * hi, hi + 20.0)))
