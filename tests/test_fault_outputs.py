@@ -71,3 +71,48 @@ def test_a_fault_with_a_missing_well_is_reported_and_the_others_run(example_dir,
                         on_error=errors.append)
     assert [r.spec.name for r in res] == ["Real"]
     assert len(errors) == 1 and errors[0].startswith(f"{f}: row 1: well 'HRM-9' not found")
+
+
+OSTREL = "name,footwall,throw_m,throw_low_m,throw_high_m,throw_dist\nOstrel Fault,HRM-1,25,15,35,uniform\n"
+
+
+def test_cli_faults_uncertainty_and_identical_reruns(example_dir, tmp_path, capsys):
+    from logprep.cli import main
+    from logprep.run.faults import UNCERTAINTY_COLUMNS
+
+    f = tmp_path / "faults.csv"
+    f.write_text(OSTREL)
+    runs = []
+    for k in (1, 2):
+        out = tmp_path / f"o{k}"
+        args = ["screen", str(example_dir / "HRM-1.las"), "--tops", str(example_dir / "tops.csv"),
+                "--faults", str(f), "--realisations", "15", "--random-state", "3", "--out", str(out),
+                "--no-sheet", "--uncertainty"]
+        assert main(args) == 0
+        runs.append(out)
+    a, b = ((o / "faults.csv").read_bytes() for o in runs)
+    assert a == b and len(pd.read_csv(runs[0] / "faults.csv"))
+    jux = pd.read_csv(runs[0] / "HRM-1" / "juxtapositions.csv")
+    assert list(jux.columns[-len(UNCERTAINTY_COLUMNS):]) == UNCERTAINTY_COLUMNS
+    assert (jux["sgr_min_pct_p10"] <= jux["sgr_min_pct_p90"]).all()
+    settings = (runs[0] / "logprep-settings.toml").read_text()
+    assert "[uncertainty]" in settings and "realisations = 15" in settings and "random_state = 3" in settings
+
+
+@pytest.mark.parametrize("text, config, message", [
+    ("name,footwall,throw_m\nA,HRM-1,ten\n", None, "row 1, column throw_m: 'ten' is not a number"),
+    (OSTREL, "[uncertainty]\nburial_sd = 3\n", "unknown key [uncertainty] 'burial_sd'"),
+])
+def test_cli_bad_faults_file_or_spreads_are_one_line_usage_errors(example_dir, tmp_path, capsys, text,
+                                                                   config, message):
+    from logprep.cli import main
+
+    f = tmp_path / "faults.csv"
+    f.write_text(text)
+    args = ["screen", str(example_dir / "HRM-1.las"), "--faults", str(f), "--out", str(tmp_path / "o")]
+    if config:
+        (tmp_path / "c.toml").write_text(config)
+        args += ["--config", str(tmp_path / "c.toml")]
+    assert main(args) == 2
+    err = capsys.readouterr().err
+    assert err.count("\n") == 1 and message in err

@@ -90,7 +90,10 @@ def screen_faults(
             if spec.marker and tops is None:
                 raise FaultScreenError(f"{spec.where}: marker {spec.marker!r} needs a tops file (--tops)")
             res = screen_fault(spec, fw, hw, settings, spreads)
-            res = replace(res, grid=fault_grid(res, fw, settings))
+            from logprep.io.tops import well_key
+
+            res = replace(res, grid=fault_grid(res, fw, settings),
+                          footwall_keys=(well_key(fw.well.name), well_key(Path(fw.well.source).stem)))
         except LogprepError as exc:
             msg = str(exc).splitlines()[0]
             if not msg.startswith(str(faults_file)):
@@ -133,9 +136,8 @@ def write_faults(results: list[FaultResult], out_dir: str | Path, settings, *, s
 
 def faults_by_footwall(results: list[FaultResult]) -> dict[str, tuple[FaultResult, ...]]:
     """Fault results by the footwall well's name key (for the fault page of a well's sheet)."""
-    from logprep.io.tops import well_key
-
     by: dict[str, list] = {}
     for r in results:
-        by.setdefault(well_key(r.table["footwall_well"].iloc[0] if len(r.table) else r.spec.footwall), []).append(r)
+        for key in dict.fromkeys(r.footwall_keys):
+            by.setdefault(key, []).append(r)
     return {k: tuple(v) for k, v in by.items()}

@@ -211,6 +211,7 @@ class FaultResult:
     fw_units: tuple = ((), ())
     hw_units: tuple = ((), ())
     grid: object = None
+    footwall_keys: tuple = ()
 
 
 def screen_fault(spec: FaultSpec, fw, hw, settings, spreads: Spreads | None = None) -> FaultResult:
@@ -313,3 +314,23 @@ def window_uncertainty(scr, spreads: Spreads | None = None) -> pd.DataFrame:
     return pd.DataFrame({
         "sgr_min_pct_p10": p[0, k], "sgr_min_pct_p50": p[1, k], "sgr_min_pct_p90": p[2, k],
         "p_juxtaposed": juxt.mean(axis=0)[k], "p_seal": p_seal[k]}, index=w.index)
+
+
+def with_fault_work(result, faults: dict | None = None, spreads: Spreads | None = None):
+    """``result`` with the fault results whose footwall is this well on ``result.faults``
+    (``faults``: footwall key -> results, see
+    :func:`logprep.run.fault_batch.faults_by_footwall`) and, with ``spreads``, the
+    :data:`UNCERTAINTY_COLUMNS` appended to its windows."""
+    from pathlib import Path
+
+    from logprep.io.tops import well_key
+
+    changes = {}
+    if faults:
+        keys = (well_key(result.well.name), well_key(Path(result.well.source).stem))
+        mine = next((faults[k] for k in keys if k in faults), ())
+        if mine:
+            changes["faults"] = tuple(mine)
+    if spreads is not None:
+        changes["windows"] = result.windows.join(window_uncertainty(result, spreads))
+    return replace(result, **changes) if changes else result
