@@ -3,12 +3,13 @@
 from __future__ import annotations
 
 import argparse
-from pathlib import Path
 import sys
 import warnings
+from pathlib import Path
 
 from logprep import __version__
 from logprep.errors import LogprepError
+from logprep.run.fault_options import add_fault_options, faults_after_batch, faults_before_batch
 
 # the science is imported only where a command or its options need it (fast --version)
 
@@ -238,8 +239,6 @@ def cmd_screen(args) -> int:
         settings = settings.updated(**extra) if extra else settings
         if args.pairs is None:
             args.pairs = str(demo / "pairs.csv")
-        if args.faults is None:
-            args.faults = str(demo / "faults.csv")
     if args.pairs:
         from logprep.run.pairs import read_pairs
 
@@ -248,21 +247,13 @@ def cmd_screen(args) -> int:
         from logprep.io.locations import read_locations
 
         read_locations(args.locations)  # likewise a bad locations file
-
-    spreads = _spreads_from_args(args)
-    fault_results, fault_errors = [], []
-    if args.faults:
-        fault_results, fault_errors = _screen_faults(args, paths, settings, spreads)
-    from logprep.run.fault_batch import faults_by_footwall
-
+    faults = faults_before_batch(args, paths, settings)
     report = screen_paths(
         paths, args.out, settings,
         on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
         progress=_progress(sys.stderr),
         jobs=args.jobs,
-        sheets=not args.no_sheet,
-        faults=faults_by_footwall(fault_results) or None,
-        spreads=spreads if args.uncertainty else None,
+        sheets=not args.no_sheet, **faults.batch_kwargs,
     )
     ok = len(report.rows) - len(report.failures)
     print(f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed; "
@@ -278,16 +269,7 @@ def cmd_screen(args) -> int:
         print(f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed; "
               f"summary {args.out}/pairs_summary.csv")
         failed = failed or bad > 0
-    if args.faults:
-        from logprep.run.config import SETTINGS_FILE_NAME, write_settings
-        from logprep.run.fault_batch import FAULTS_FILE_NAME, write_faults
-
-        write_faults(fault_results, args.out, settings, sheets=not args.no_sheet)
-        write_settings(Path(args.out) / SETTINGS_FILE_NAME, settings, uncertainty=spreads)
-        print(f"screened {len(fault_results) + len(fault_errors)} fault(s) in {spreads.realisations} "
-              f"realisations each: {len(fault_results)} ok, {len(fault_errors)} failed; "
-              f"table {args.out}/{FAULTS_FILE_NAME}")
-        failed = failed or bool(fault_errors)
+    failed = faults_after_batch(args, faults, settings) or failed
     from logprep.report.overview_files import write_overview
 
     written = write_overview(args.out, args.locations)
@@ -296,8 +278,6 @@ def cmd_screen(args) -> int:
 
 
 def cmd_overview(args) -> int:
-    from pathlib import Path
-
     from logprep.report.overview_files import write_overview
 
     out = Path(args.out_dir)
@@ -307,31 +287,6 @@ def cmd_overview(args) -> int:
     written = write_overview(out, args.locations)
     print(f"field overview {written['overview.html']} and {written['overview.pdf']}")
     return EXIT_OK
-
-
-def _spreads_from_args(args):
-    """Monte Carlo spreads from ``--config``'s [uncertainty] table, then the options."""
-    from logprep.run.config import read_uncertainty
-
-    spreads = read_uncertainty(getattr(args, "config", None))
-    changes = {k: getattr(args, k) for k in ("realisations", "random_state") if getattr(args, k) is not None}
-    return spreads.updated(**changes) if changes else spreads
-
-
-def _screen_faults(args, paths, settings, spreads):
-    """Every fault of ``--faults`` (the file is checked first: a bad one is a usage error);
-    returns the results and the one-line failures (already printed)."""
-    from logprep.io.faults import read_faults
-    from logprep.run.fault_batch import screen_faults
-
-    read_faults(args.faults)
-    errors: list[str] = []
-
-    def report(msg: str) -> None:
-        errors.append(msg)
-        print(f"error: {msg}", file=sys.stderr)
-
-    return screen_faults(paths, args.faults, settings, spreads, on_error=report), errors
 
 
 def cmd_tune(args) -> int:
@@ -389,20 +344,7 @@ def build_parser() -> argparse.ArgumentParser:
     p.add_argument("--pairs", metavar="FILE",
                    help="also screen well pairs across a fault: CSV of footwall, hangingwall and "
                         "marker (a top in both wells, needs --tops) or shift_m; one folder per pair")
-    g = p.add_argument_group("named faults with uncertainty",
-                             "Spreads of the drawn inputs: the [uncertainty] table of --config.")
-    g.add_argument("--faults", metavar="FILE",
-                   help="screen named faults at their throw (CSV or TOML: name, footwall, hangingwall, "
-                        "marker or shift_m, throw_m, throw_low_m, throw_high_m, ...); writes faults.csv "
-                        "and a page per fault")
-    g.add_argument("--uncertainty", action="store_true",
-                   help="also append P10/P50/P90 of minimum SGR, p_juxtaposed and p_seal to every "
-                        "well's juxtapositions.csv")
-    g.add_argument("--realisations", type=int, metavar="N",
-                   help="Monte Carlo realisations per fault and well (default: 1000)")
-    g.add_argument("--random-state", dest="random_state", type=int, metavar="N",
-                   help="whole number that fixes the random draws; the same number gives the same "
-                        "tables (default: 1)")
+    add_fault_options(p)
     _add_locations_option(p)
     _add_screen_options(p)
     p.set_defaults(func=cmd_screen)

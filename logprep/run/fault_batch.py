@@ -141,3 +141,4 @@ def faults_by_footwall(results: list[FaultResult]) -> dict[str, tuple[FaultResul
         for key in dict.fromkeys(r.footwall_keys):
             by.setdefault(key, []).append(r)
     return {k: tuple(v) for k, v in by.items()}
+
