@@ -5,10 +5,12 @@ from __future__ import annotations
 import argparse
 import sys
 import warnings
+from pathlib import Path
 
 from logprep import __version__
 from logprep.cli_rock import print_rock_summary, rock_options, tune_rock_options
 from logprep.errors import LogprepError
+from logprep.run.fault_options import add_fault_options, faults_after_batch, faults_before_batch
 
 # the science is imported only where a command or its options need it (fast --version)
 
@@ -246,12 +248,13 @@ def cmd_screen(args) -> int:
         from logprep.io.locations import read_locations
 
         read_locations(args.locations)  # likewise a bad locations file
+    faults = faults_before_batch(args, paths, settings)
     report = screen_paths(
         paths, args.out, settings,
         on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
         progress=_progress(sys.stderr),
         jobs=args.jobs,
-        sheets=not args.no_sheet,
+        sheets=not args.no_sheet, **faults.batch_kwargs,
     )
     ok = len(report.rows) - len(report.failures)
     print(f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed; "
@@ -267,6 +270,7 @@ def cmd_screen(args) -> int:
         print(f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed; "
               f"summary {args.out}/pairs_summary.csv")
         failed = failed or bad > 0
+    failed = faults_after_batch(args, faults, settings) or failed
     from logprep.report.overview_files import write_overview
 
     written = write_overview(args.out, args.locations)
@@ -275,8 +279,6 @@ def cmd_screen(args) -> int:
 
 
 def cmd_overview(args) -> int:
-    from pathlib import Path
-
     from logprep.report.overview_files import write_overview
 
     out = Path(args.out_dir)
@@ -344,6 +346,7 @@ def build_parser() -> argparse.ArgumentParser:
     p.add_argument("--pairs", metavar="FILE",
                    help="also screen well pairs across a fault: CSV of footwall, hangingwall and "
                         "marker (a top in both wells, needs --tops) or shift_m; one folder per pair")
+    add_fault_options(p)
     _add_locations_option(p)
     _add_screen_options(p)
     p.set_defaults(func=cmd_screen)

@@ -71,6 +71,7 @@ class WellScreening:
     depth_reference: str = "as logged"
     rock: np.ndarray | None = None
     unusable: dict | None = None
+    faults: tuple = ()
 
     @property
     def min_window_sgr_pct(self) -> float:
