@@ -8,7 +8,7 @@ import warnings
 from pathlib import Path
 
 from logprep import __version__
-from logprep.cli_rock import print_rock_summary, rock_options, tune_rock_options
+from logprep.cli_rock import print_tune_summary, rock_options, tune_rock_options
 from logprep.errors import LogprepError
 from logprep.run.fault_options import add_fault_options, faults_after_batch, faults_before_batch
 
@@ -309,11 +309,7 @@ def cmd_tune(args) -> int:
         min_beds_m=ranges.get("bed_sweep", DEFAULT_MIN_BEDS_M),
         descriptions=args.rock_file, label_curve=args.label_curve,
     )
-    paths, t = write_sweep(sweep, args.out), sweep.table
-    print(f"{sweep.reference.well.name}: {len(t) - 1} settings swept; "
-          f"{int((t['verdicts_flipped'] == 0).sum()) - 1} keep every window verdict of the reference; "
-          f"table {paths['tune.csv']}, figure {paths['tune.pdf']}")
-    print_rock_summary(t)
+    print_tune_summary(sweep, write_sweep(sweep, args.out))
     return EXIT_OK
 
 

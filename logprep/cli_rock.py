@@ -47,6 +47,15 @@ def tune_rock_options(p: argparse.ArgumentParser) -> None:
                         "label curve when the well has one)")
 
 
+def print_tune_summary(sweep, paths) -> None:
+    """The one-line summary of ``logprep tune``, and the rock scores when there are some."""
+    t = sweep.table
+    print(f"{sweep.reference.well.name}: {len(t) - 1} settings swept; "
+          f"{int((t['verdicts_flipped'] == 0).sum()) - 1} keep every window verdict of the reference; "
+          f"table {paths['tune.csv']}, figure {paths['tune.pdf']}")
+    print_rock_summary(t)
+
+
 def print_rock_summary(t) -> None:
     """One line on how the swept settings agree with the described rock (when scored)."""
     if "rock_balanced_accuracy" not in t:
