@@ -80,26 +80,35 @@ class BatchReport:
 
 
 def screen_one(path: Path, folder: str, out_dir: Path, settings: ScreenSettings, tops=None,
-               sheets: bool = True) -> dict:
+               sheets: bool = True, faults=None, spreads=None) -> dict:
     """Screen one file and put its folder in place; return its ``summary.csv`` row.
 
     A :class:`LogprepError` becomes a row with ``status`` ``error`` and a one-line
     message naming the file; nothing is written for that file.
     """
-    outcome = screen_well_task(settings, tops, OutputOptions(sheets=sheets), str(path),
-                               readable_path(path), folder)
+    outcome = screen_well_task(settings, tops, OutputOptions(sheets=sheets), (faults, spreads),
+                               str(path), readable_path(path), folder)
     if outcome.files is not None:
         commit_folder(Path(out_dir), folder, outcome.files)
     return outcome.row
 
 
-def run_settings_sha256(settings: ScreenSettings, options: OutputOptions) -> str:
+def run_settings_sha256(settings: ScreenSettings, options: OutputOptions, faults=None,
+                        spreads=None) -> str:
     """The hash that decides whether a well's results are still those of this run: the
     settings, the output options, the logprep version and the bytes of the tops and
     survey files."""
     return settings_sha256(settings.to_dict(), {
         "logprep": __version__, "outputs": options.to_dict(),
-        "tops": tree_sha256(settings.input.tops_file), "surveys": tree_sha256(settings.input.survey_dir)})
+        "tops": tree_sha256(settings.input.tops_file), "surveys": tree_sha256(settings.input.survey_dir),
+        "fault_work": _pickle_sha256((faults, spreads)) if faults or spreads else ""})
+
+
+def _pickle_sha256(obj) -> str:
+    import hashlib
+    import pickle
+
+    return hashlib.sha256(pickle.dumps(obj, protocol=4)).hexdigest()
 
 
 def pending_row(folder: str, given: str) -> dict:
@@ -121,6 +130,8 @@ def screen_paths(
     field_smear: bool = False,
     force: bool = False,
     backend: Backend | None = None,
+    faults=None,
+    spreads=None,
 ) -> BatchReport:
     """Screen every LAS file under ``paths`` and write results below ``out_dir``.
 
@@ -151,7 +162,7 @@ def screen_paths(
     if settings.input.survey_dir:
         check_survey_dir(settings.input.survey_dir)
     options = OutputOptions(sheets=sheets, field=field, field_smear=field_smear)
-    run_sha = run_settings_sha256(settings, options)
+    run_sha = run_settings_sha256(settings, options, faults, spreads)
     taken: set[str] = set()
     folders = [folder_name(f, taken) for f in files]
     given = [str(f) for f in files]
@@ -175,7 +186,7 @@ def screen_paths(
             mark_folder(out / folder, "not part of the latest run on this folder (see "
                         "summary.csv and logprep-settings.toml)")
             manifest.drop(folder)
-        write_settings(out / SETTINGS_FILE_NAME, settings)
+        write_settings(out / SETTINGS_FILE_NAME, settings, uncertainty=spreads)
         summary = write_summary(rows, out)
         report = BatchReport(summary, rows, skipped=len(files) - len(todo))
         progress.start(len(files), report.skipped)
@@ -187,7 +198,7 @@ def screen_paths(
         last = time.monotonic()
         try:
             for k, outcome in run_tasks(screen_well_task, tasks, backend,
-                                        shared=(worker_settings, tops, options)):
+                                        shared=(worker_settings, tops, options, (faults, spreads))):
                 i = todo[k]
                 if isinstance(outcome, TaskLost):
                     row = {**pending_row(folders[i], given[i]), "status": "error",

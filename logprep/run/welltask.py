@@ -73,11 +73,12 @@ def one_line(exc: Exception, given: str, readable: str) -> str:
     return msg if given in msg else f"{given}: {msg}"
 
 
-def screen_well_task(settings, tops, options: OutputOptions, given: str, readable: str,
-                     folder: str) -> WellOutcome:
+def screen_well_task(settings, tops, options: OutputOptions, fault_work: tuple, given: str,
+                     readable: str, folder: str) -> WellOutcome:
     """Screen the LAS file at ``readable`` (named ``given``) for folder ``folder``.
 
-    ``settings`` and ``tops`` (a tops table or None) are shared by the batch.  A
+    ``settings``, ``tops`` (a tops table or None) and ``fault_work`` (``(faults, spreads)``,
+    see :func:`logprep.run.faults.with_fault_work`) are shared by the batch.  A
     :class:`~logprep.errors.LogprepError` becomes a row with ``status`` ``error`` and no
     files; any other exception is a bug and propagates.
     """
@@ -94,6 +95,10 @@ def screen_well_task(settings, tops, options: OutputOptions, given: str, readabl
         well = replace(well, source=given)
         t1 = time.perf_counter()
         result = screen_well(well, settings, tops=tops)
+        if any(w is not None for w in fault_work):
+            from logprep.run.faults import with_fault_work
+
+            result = with_fault_work(result, *fault_work)
         t2 = time.perf_counter()
         files = render_well(result, None, field=options.field, field_smear=options.field_smear)
         t3 = time.perf_counter()
