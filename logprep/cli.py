@@ -211,6 +211,26 @@ def _progress(stream):
     return lambda files: tqdm(files, unit="well", file=stream)
 
 
+def _print_error(msg: str) -> None:
+    from logprep.safetext import escape_line
+
+    print(f"error: {escape_line(msg)}", file=sys.stderr)
+
+
+def _final_line(report, out) -> str:
+    """The run's last line: counts, internal errors and paths skipped while scanning."""
+    from logprep.contain import INTERNAL_LOG_NAME
+    from logprep.safetext import show_path
+
+    ok = len(report.rows) - len(report.failures)
+    internal = report.internal_errors
+    bugs = (f" ({internal} internal error(s): tracebacks in "
+            f"{show_path(out)}/{INTERNAL_LOG_NAME}, please report)") if internal else ""
+    skipped = f"; {report.scan_line}" if report.scan_line else ""
+    return (f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed{bugs}; "
+            f"results in {show_path(out)}, summary {show_path(report.summary_path)}{skipped}")
+
+
 def cmd_screen(args) -> int:
     from logprep.batch import screen_paths
     from logprep.examples import example_logs_dir
@@ -237,21 +257,19 @@ def cmd_screen(args) -> int:
         read_pairs(args.pairs)  # a bad pairs file is a usage error, found before the wells run
     report = screen_paths(
         paths, args.out, settings,
-        on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
+        on_error=_print_error,
         progress=_progress(sys.stderr),
         jobs=args.jobs,
         sheets=not args.no_sheet,
+        time_limit_s=args.well_time_limit,
     )
-    ok = len(report.rows) - len(report.failures)
-    print(f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed; "
-          f"results in {args.out}, summary {report.summary_path}")
+    print(_final_line(report, args.out))
     failed = bool(report.failures)
     if args.pairs:
         from logprep.pairs import screen_pairs
 
         rows = screen_pairs(paths, args.pairs, args.out, settings,
-                            on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
-                            sheets=not args.no_sheet)
+                            on_error=_print_error, sheets=not args.no_sheet)
         bad = sum(r["status"] != "ok" for r in rows)
         print(f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed; "
               f"summary {args.out}/pairs_summary.csv")
@@ -309,6 +327,9 @@ def build_parser() -> argparse.ArgumentParser:
     _add_config_option(p)
     p.add_argument("--jobs", type=int, default=1, metavar="N",
                    help="screen wells in N worker processes (default: 1)")
+    p.add_argument("--well-time-limit", type=float, default=900.0, metavar="S",
+                   help="seconds one well may take before it is stopped and reported as an "
+                        "error; 0 for no limit (default: %(default)g)")
     p.add_argument("--no-sheet", action="store_true",
                    help="write tables and fields only, no PDF/PNG sheets (fast, for large batches)")
     p.add_argument("--pairs", metavar="FILE",
@@ -352,7 +373,9 @@ def main(argv: list[str] | None = None) -> int:
             warnings.simplefilter("ignore", RuntimeWarning)
             return args.func(args)
     except LogprepError as exc:
-        print(f"logprep: error: {exc}", file=sys.stderr)
+        from logprep.safetext import escape_line
+
+        print(f"logprep: error: {escape_line(exc)}", file=sys.stderr)
         return EXIT_USAGE
     except KeyboardInterrupt:
         print("logprep: interrupted; files already written are complete", file=sys.stderr)

@@ -18,7 +18,7 @@ import pandas as pd
 
 from logprep.csvtable import parse_number, read_csv_table
 from logprep.errors import LogprepError
-from logprep.outputs import csv_bytes, folder_name, pdf_bytes, png_bytes, write_bytes_atomic
+from logprep.outputs import csv_bytes, folder_name, pdf_bytes, plain_text, png_bytes, write_bytes_atomic
 from logprep.tops import well_key
 from logprep.twowell import PairError, marker_shift_m, two_well_field, two_well_windows
 
@@ -157,8 +157,9 @@ def screen_pairs(
             title = f"Two-well screening: {fw.well.name} (footwall) / {hw.well.name} (hanging wall)"
             files_out = {"juxtapositions.csv": csv_bytes(windows), "sgr_field.npz": grid.npz_bytes()}
             if sheets:
-                page = pair_sheet(fw, hw, shift, windows, grid, settings, title)
-                files_out.update({"sheet.pdf": pdf_bytes([page]), "sheet.png": png_bytes(page)})
+                with plain_text():
+                    page = pair_sheet(fw, hw, shift, windows, grid, settings, title)
+                    files_out.update({"sheet.pdf": pdf_bytes([page]), "sheet.png": png_bytes(page)})
             folder = folder_name(f"pair_{p.footwall}_{p.hangingwall}", taken)
             for fname, data in files_out.items():
                 write_bytes_atomic(out / folder / fname, data)

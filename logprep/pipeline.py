@@ -328,6 +328,12 @@ class WellScreening:
     depth_reference: str = "as logged"
 
     @property
+    def warnings(self) -> tuple[str, ...]:
+        """What the reader changed or doubts in this well (see :attr:`WellLog.warnings`),
+        shown in ``qc.csv``, on the sheet and in ``summary.csv``."""
+        return tuple(self.well.warnings)
+
+    @property
     def min_window_sgr_pct(self) -> float:
         """Lowest SGR over all sand-sand windows that are not a sand against itself
         (NaN when there are none)."""
@@ -480,7 +486,8 @@ def screen_well(
     well, picks, depth_ref, survey_note = deviated_well(well, settings, picks)
     cv = clay_volume(well, settings, picks)
     depth = cv.depth_m
-    notes = list(cv.notes) + ([survey_note] if survey_note else [])
+    notes = [f"warning: {w}" for w in well.warnings] + list(cv.notes) \
+        + ([survey_note] if survey_note else [])
     vsh, filled = fill_gaps(depth, cv.vsh)
     if filled.any():
         notes.append(

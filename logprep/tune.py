@@ -290,15 +290,17 @@ def write_sweep(sweep: Sweep, out_dir: str | Path) -> dict[str, Path]:
     (the one-page figure) and ``logprep-settings.toml`` (the reference settings and the
     ranges) into ``out_dir``, each atomically.  Returns the paths by file name."""
     from logprep.config import SETTINGS_FILE_NAME, settings_toml
-    from logprep.outputs import csv_bytes, pdf_bytes, png_bytes, write_bytes_atomic
+    from logprep.outputs import csv_bytes, pdf_bytes, plain_text, png_bytes, write_bytes_atomic
     from logprep.tunesheet import sweep_figure
 
-    fig = sweep_figure(sweep)
+    with plain_text():
+        fig = sweep_figure(sweep)
+        pdf, png = pdf_bytes([fig]), png_bytes(fig)
     files = {
         "tune.csv": csv_bytes(sweep.table),
         "tune-windows.csv": csv_bytes(sweep.windows),
-        "tune.pdf": pdf_bytes([fig]),
-        "tune.png": png_bytes(fig),
+        "tune.pdf": pdf,
+        "tune.png": png,
         SETTINGS_FILE_NAME: settings_toml(sweep.settings, sweep.ranges).encode("utf-8"),
     }
     out = Path(out_dir)
