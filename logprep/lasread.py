@@ -20,7 +20,9 @@ from logprep.fastascii import header_items, read_las_data
 from logprep.lastext import load_las_source
 from logprep.model import WellLog
 from logprep.safetext import show_path
-from logprep.sanity import bound_values, check_depth_index, quirk_warnings, wrap_warning
+from logprep.sanity import (
+    bound_values, check_depth_index, check_depth_range, quirk_warnings, wrap_warning,
+)
 
 FT_TO_M = 0.3048  # exact, by definition of the international foot
 
@@ -113,7 +115,8 @@ def find_curve(
         if key in by_upper:
             return by_upper[key]
         raise CurveNotFoundError(
-            f"no curve named {wanted!r} (found {', '.join(mnemonics) or 'none'})"
+            f"no curve named {wanted!r} (found {', '.join(mnemonics) or 'none'}); "
+            "check the name given with --gr-curve against the ~Curve section"
         )
     for alias in CURVE_ALIASES[kind]:
         if alias in by_upper:
@@ -124,9 +127,9 @@ def find_curve(
                 return m
     if not required:
         return None
-    hint = "; name one with --gr-curve" if kind == "gr" else ""
+    fix = "name one with --gr-curve" if kind == "gr" else "add the curve to the file"
     raise CurveNotFoundError(
-        f"no {_KIND_NAMES.get(kind, kind)} curve (found {', '.join(mnemonics) or 'no curves'}){hint}"
+        f"no {_KIND_NAMES.get(kind, kind)} curve (found {', '.join(mnemonics) or 'no curves'}); {fix}"
     )
 
 
@@ -203,7 +206,7 @@ def read_well(
     data = read_las_data(source, fast=fast)
     source.drop_data()  # the file's bytes are not needed any more
     notes = list(source.warnings)
-    wrap_note = wrap_warning(source.wrap, sample, len(data.columns))
+    wrap_note = wrap_warning(source.wrap, sample, len(data.columns), source.delimiter == "COMMA")
     notes += [wrap_note] if wrap_note else []
     try:
         return _to_well_log(path, source, data, notes, has_rows=has_rows,
@@ -212,6 +215,20 @@ def read_well(
         raise CurveNotFoundError(f"{where}: {exc}") from None
     except LasReadError as exc:
         raise LasReadError(f"{where}: {exc}") from None
+
+
+def _text_gr_check(parsed, numeric: list[int], gr_curve: str | None) -> None:
+    """A gamma-ray curve that holds only text gets its own message, not 'no curve'."""
+    dropped = [j for j in range(1, len(parsed.columns)) if j not in numeric]
+    for j in dropped:
+        name = parsed.mnemonics[j]
+        wanted = (gr_curve or "").strip().upper()
+        if _base_mnemonic(name) in (GR_ALIASES if not wanted else [wanted]):
+            first = str(np.asarray(parsed.columns[j])[0])[:40]
+            raise CurveNotFoundError(
+                f"gamma-ray curve {name} holds text, not numbers (first value {first!r}); "
+                "correct the ~A values (numbers separated by blanks) or name another "
+                "curve with --gr-curve")
 
 
 def _to_well_log(path: Path, source, parsed, notes: list[str], *, has_rows: bool,
@@ -232,6 +249,10 @@ def _to_well_log(path: Path, source, parsed, notes: list[str], *, has_rows: bool
         ]
         cols = [floats[j] for j in numeric]
     index_mnemonic, index_unit = parsed.mnemonics[0], parsed.units[0]
+    if index_mnemonic.upper().startswith("UNKNOWN"):
+        raise LasReadError("no ~Curve section naming the data columns; add one (one line "
+                           "per column, the depth first, e.g. 'DEPT.M : DEPTH')")
+    _text_gr_check(parsed, numeric, gr_curve)
     mnemonics = [parsed.mnemonics[j] for j in numeric]
     units = dict(zip(parsed.mnemonics, parsed.units))
 
@@ -269,6 +290,7 @@ def _to_well_log(path: Path, source, parsed, notes: list[str], *, has_rows: bool
     if depth.size < 2:
         raise LasReadError(f"fewer than two depth samples ({depth.size} with a valid depth); "
                            "a screen needs a log over a depth interval: check the depth column")
+    check_depth_range(depth)
     step = np.diff(depth)
     if np.all(step < 0):
         cols, depth = [c[::-1] for c in cols], depth[::-1]

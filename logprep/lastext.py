@@ -132,9 +132,9 @@ def check_binary(where: str, head: bytes, tail: bytes, size: int) -> None:
     if nul >= 0:
         share = head.count(b"\0") / max(len(head), 1)
         raise LasReadError(
-            f"{where}: binary data (NUL bytes, {share:.0%} of the first {len(head) / 1024**2:.1f} MB, "
-            f"first at byte {nul}), not LAS text; a copy padded with zeros or a binary file "
-            f"saved as .las: {_FIX_DOWNLOAD}")
+            f"{where}: binary data (NUL bytes from byte {nul:,}; {share:.0%} of the first "
+            f"{len(head):,} bytes), not LAS text, as a copy padded with zeros or a binary file "
+            f"saved as .las holds; {_FIX_DOWNLOAD}")
     if tail and b"\0" in tail:
         run = len(tail) - len(tail.rstrip(b"\0"))
         detail = f"ends in {run:,} NUL bytes" if run else "has NUL bytes near its end"
@@ -270,8 +270,8 @@ def clean_header(text: str, warnings: list[str]) -> tuple[str, dict[str, str]]:
             key = mnem.strip().upper()
             if key in repeated:
                 seen[key] = seen.get(key, 0) + 1
-                tmp = f"{mnem.strip()}__rep{seen[key]}"
-                renamed[tmp] = f"{mnem.strip()}:{seen[key]}"
+                tmp = f"{mnem.strip()}__REP{seen[key]}"
+                renamed[tmp.upper()] = f"{key}:{seen[key]}"  # lasio's names (upper case)
                 lines[i] = f" {tmp}.{rest}"
         counts.clear()
         section_lines.clear()
@@ -333,6 +333,9 @@ def load_las_source(path: str | Path) -> LasSource:
         raise LasReadError(f"{where}: not a readable LAS file (no line starts with ~V, ~W, ~C "
                            "or ~A); check it is the log export, not another file saved as .las")
     warnings: list[str] = []
+    if b"\r" in raw[:65536] and b"\n" not in raw[:65536]:
+        raw = raw.replace(b"\r", b"\n")  # old Mac line ends: one CR per line
+        converted = True
     span = _data_section(raw)
     head_end, data_start = span if span else (len(raw), len(raw))
     header, encoding = decode_header(raw[:head_end])

@@ -43,22 +43,27 @@ CLIP_RUN = 5
 in runs of :data:`CLIP_RUN` or more, reads as a clipped (saturated) tool (warning)."""
 
 
-def check_depth_index(depth_m: np.ndarray) -> None:
-    """Refuse a depth index (metres, finite values, sorted increasing) that no borehole
-    has: beyond :data:`MAX_ABS_DEPTH_M`, steps below :data:`MIN_STEP_M`, or more than
-    :data:`MAX_SAMPLES` samples."""
+def check_depth_range(depth_m: np.ndarray) -> None:
+    """Refuse a depth index (metres, finite values, any order) that no borehole has:
+    beyond :data:`MAX_ABS_DEPTH_M`, or more than :data:`MAX_SAMPLES` samples."""
     if depth_m.size > MAX_SAMPLES:
         raise LasReadError(
             f"{depth_m.size:,} depth samples, over logprep's limit of {MAX_SAMPLES:,}; "
             "split the log into depth intervals or resample it coarser")
     if depth_m.size == 0:
         return
-    lo, hi = float(depth_m[0]), float(depth_m[-1])
+    lo, hi = float(np.min(depth_m)), float(np.max(depth_m))
     if max(abs(lo), abs(hi)) > MAX_ABS_DEPTH_M:
         raise LasReadError(
             f"depth runs {lo:.6g} to {hi:.6g} m, beyond any borehole "
             f"(|depth| <= {MAX_ABS_DEPTH_M:,.0f} m); check the depth column and its unit in "
             "~Curve (or pass --depth-unit)")
+
+
+def check_depth_index(depth_m: np.ndarray) -> None:
+    """:func:`check_depth_range`, and for a sorted increasing index no step below
+    :data:`MIN_STEP_M`."""
+    check_depth_range(depth_m)
     if depth_m.size > 1:
         step = np.diff(depth_m)
         k = int(np.argmin(step))
@@ -115,17 +120,20 @@ def quirk_warnings(depth_m: np.ndarray, gr_api: np.ndarray, gr: str) -> list[str
     return notes
 
 
-def wrap_warning(wrap: bool, data: bytes, n_curves: int) -> str | None:
-    """A warning when the ``WRAP`` flag does not match the rows of the data section
-    (judged from its first non-blank lines)."""
-    lines = [ln for ln in data[:65536].splitlines()[:50] if ln.strip()][:20]
+def wrap_warning(wrap: bool, data: bytes, n_curves: int, comma: bool = False) -> str | None:
+    """A warning when the ``WRAP`` flag or the ~Curve section does not match the rows of
+    the data section (judged from its first non-blank, non-comment lines)."""
+    lines = [ln for ln in data[:65536].splitlines()[:60]
+             if ln.strip() and not ln.lstrip().startswith(b"#")][:20]
     if not lines or n_curves < 2:
         return None
-    counts = [len(ln.replace(b",", b" ").split()) for ln in lines]
+    counts = [len((ln.replace(b",", b" ") if comma else ln).split()) for ln in lines]
     full = sum(c == n_curves for c in counts)
     if not wrap and full < len(counts) // 2:
-        return (f"WRAP. NO, but most data lines hold fewer or more than the {n_curves} "
-                "curves of ~Curve; the rows were read as wrapped: set WRAP. YES or fix the rows")
+        common = max(set(counts), key=counts.count)
+        return (f"WRAP. NO, but data lines hold {common} values, not the {n_curves} columns "
+                "~Curve lists; check ~Curve names every column once (or set WRAP. YES if "
+                "rows wrap)")
     if wrap and full == len(counts) and n_curves > 1:
         return "WRAP. YES, but every data line holds a whole row; set WRAP. NO"
     return None
