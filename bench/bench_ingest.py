@@ -5,7 +5,7 @@ Generates an 18 MB LAS 2.0 file (200,000 rows of depth and 8 curves, 0.05 m step
 temporary folder, then times
 
 * ``lasio.read`` (the baseline: logprep's reader before the fast data path),
-* ``logprep.lasread.read_well`` (header through lasio, ``~A`` through pandas' C parser,
+* ``logprep.io.las.read_well`` (header through lasio, ``~A`` through pandas' C parser,
   then the unit, NULL, depth and sanity checks),
 * the bare ``pandas.read_csv`` of the ``~A`` section (the floor: no header, no checks).
 
@@ -35,7 +35,7 @@ def status_kb(key):
     with open('/proc/self/status') as f:
         return next(int(ln.split()[1]) for ln in f if ln.startswith(key))
 import lasio, numpy, pandas
-from logprep.lasread import read_well
+from logprep.io.las import read_well
 with open('/proc/self/clear_refs', 'w') as f:
     f.write('5')  # reset the peak (the parent's peak survives exec on Linux)
 before = status_kb('VmRSS:')
@@ -87,7 +87,7 @@ def main() -> None:
 
     import lasio
 
-    from logprep.lasread import read_well
+    from logprep.io.las import read_well
 
     with tempfile.TemporaryDirectory() as tmp:
         path = Path(tmp) / "big.las"

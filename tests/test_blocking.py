@@ -4,7 +4,7 @@ import numpy as np
 import pytest
 from hypothesis import given, settings, strategies as st
 
-from logprep.blocking import block_cutoff, classify_vsh, fill_gaps, sample_edges_m
+from logprep.layers.blocking import block_cutoff, classify_vsh, fill_gaps, sample_edges_m
 from logprep.errors import SettingsError
 
 

@@ -12,7 +12,7 @@ import numpy as np
 import pytest
 
 from logprep.errors import SettingsError
-from logprep.faultrock import (
+from logprep.fault.faultrock import (
     fault_rock_thickness_m, manzocchi_permeability_md, sperrevik_permeability_md,
     transmissibility_multiplier, transmissibility_multiplier_cells,
 )

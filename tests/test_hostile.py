@@ -15,9 +15,9 @@ import numpy as np
 import pandas as pd
 import pytest
 
-from logprep.blocking import BLOCKING_METHODS, block_cutoff
+from logprep.layers.blocking import BLOCKING_METHODS, block_cutoff
 from logprep.cli import main
-from logprep.contain import INTERNAL_LOG_NAME
+from logprep.run.contain import INTERNAL_LOG_NAME
 
 HOSTILE = Path(__file__).parent / "data" / "hostile"
 sys.path.insert(0, str(HOSTILE))
@@ -163,7 +163,7 @@ def test_stalled_well_becomes_an_error_row(tmp_path, capsys):
     assert "--well-time-limit" in summary["message"][1]
 
 
-READER_MODULES = ["lasread", "lastext", "fastascii", "sanity", "contain", "scan"]
+READER_MODULES = ["io/las", "io/lastext", "io/fastascii", "io/sanity", "run/contain", "run/scan"]
 
 
 @pytest.mark.parametrize("module", READER_MODULES)
@@ -184,12 +184,12 @@ def test_every_reader_error_says_what_to_do(module):
                 continue  # a re-raise adding the file name to a message checked here
             checked += 1
             assert "; " in text, f"{path.name}:{node.lineno}: {text}"
-    assert checked >= 1 or module in ("contain", "scan", "fastascii")
+    assert checked >= 1 or module in ("run/contain", "run/scan", "io/fastascii")
 
 
 def test_values_no_instrument_reads_are_bounded(tmp_path):
     # GR of 1e308 and inf are set missing with a warning before any array is sized
-    from logprep.pipeline import screen_file
+    from logprep.run.pipeline import screen_file
 
     r = screen_file(HOSTILE / "good_gr_1e308_values.las")
     assert np.all(np.isfinite(r.gr_api) | np.isnan(r.gr_api)) and np.nanmax(r.gr_api) < 1000

@@ -16,9 +16,9 @@ import pytest
 
 from conftest import DATA, OPEN_LOGS, open_logs_path
 from logprep.errors import CurveNotFoundError, LasReadError
-from logprep.fastascii import read_las_data
-from logprep.lasread import read_well
-from logprep.lastext import MAX_HEADER_LINE, load_las_source
+from logprep.io.fastascii import read_las_data
+from logprep.io.las import read_well
+from logprep.io.lastext import MAX_HEADER_LINE, load_las_source
 
 ALL_LAS = sorted(OPEN_LOGS.rglob("*.las")) + sorted(DATA.rglob("*.las"))
 
@@ -113,7 +113,7 @@ def test_las30_header_only_example_is_refused_with_the_reason():
 
 
 def test_las30_copy_of_a_good_well_screens_like_the_las20_original():
-    from logprep.pipeline import screen_file
+    from logprep.run.pipeline import screen_file
 
     hostile = DATA / "hostile"
     a = screen_file(hostile / "good_las30_comma_delimited.las")

@@ -11,7 +11,7 @@ import numpy as np
 import pytest
 from hypothesis import given, settings, strategies as st
 
-from logprep.juxtaposition import (
+from logprep.fault.juxtaposition import (
     WINDOW_COLUMNS, contact_length_m, cumulative_clay, juxtaposition_grid,
     juxtaposition_throw_range, sand_windows, sgr_layered_pct,
 )

@@ -13,7 +13,7 @@ import numpy as np
 import pandas as pd
 import pytest
 
-from logprep.survey import (
+from logprep.io.survey import (
     SurveyError, find_survey, read_survey, station_tvd_m, true_stratigraphic_thickness_m,
     tvd_at_md,
 )

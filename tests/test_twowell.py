@@ -10,9 +10,9 @@ import numpy as np
 import pandas as pd
 import pytest
 
-from logprep.juxtaposition import sand_windows
+from logprep.fault.juxtaposition import sand_windows
 from logprep.model import Layers
-from logprep.twowell import (
+from logprep.fault.twowell import (
     PairError, marker_shift_m, two_well_juxtaposition, two_well_sgr_pct, two_well_windows,
 )
 

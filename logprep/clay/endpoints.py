@@ -1,0 +1,237 @@
+"""Gamma-ray endpoint picking per zone, and the neutron-density shale point per zone.
+
+A single clean/shale pick for a whole well is wrong wherever the GR baseline moves (hole
+size, mud, tool, formation).  Here the well is cut into zones, from formation tops or,
+without tops, where the GR baseline steps (a changepoint split), and each zone gets its
+own clean and shale lines from the samples that passed QC.  Picking the lines per zone
+when the baseline shifts is common practice, no source; the changepoint split is the
+exact least-squares changepoint search of :mod:`logprep.layers.blocking` (PELT, Killick,
+Fearnhead & Eckley 2012, JASA 107(500), 1590-1598) on the running median of the GR.
+
+Zoning modes are registered in :data:`ZONINGS`.  Pure numpy/pandas: arrays in, tables out.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+import pandas as pd
+
+from logprep.changepoint import pelt_mean_breaks
+from logprep.errors import SettingsError
+from logprep.clay.qc import running_median
+from logprep.clay.vshale import resolve_endpoint
+
+PICK_COLUMNS = ["zone", "top_m", "base_m", "source", "gr_clean_api", "gr_shale_api",
+                "samples_used", "samples_excluded", "nd_shale_separation", "note"]
+
+ZONINGS = ("auto", "tops", "changepoint", "none")
+"""``auto``: tops when the well has any inside the logged interval, else changepoints;
+``tops``: tops only (whole well when none); ``changepoint``: baseline steps only;
+``none``: one zone for the whole well (the plain single pick)."""
+
+
+def changepoint_bounds(
+    depth_m,
+    gr_api,
+    *,
+    min_zone_m: float = 400.0,
+    min_step_api: float = 8.0,
+    smooth_m: float = 15.0,
+) -> list[int]:
+    """Sample indices where the GR baseline steps.
+
+    The GR is smoothed by a running median over ``smooth_m`` metres (so beds do not count
+    as steps; :func:`logprep.clay.qc.running_median`) and split into segments of constant mean
+    by the exact changepoint search of the blocking stage
+    (:func:`logprep.changepoint.pelt_mean_breaks`, Killick et al. 2012) with segments at
+    least ``min_zone_m`` long and a cost per change of ``min_step_api^2 x n_min / 2``: the
+    least-squares gain of a step of ``min_step_api`` between two segments of ``n_min``
+    samples.  Neighbouring segments whose medians differ by less than ``min_step_api``
+    are then joined (smallest difference first).  Returns the sorted indices of the first
+    sample of every zone after the first.
+    """
+    depth = np.asarray(depth_m, dtype=float)
+    gr = np.asarray(gr_api, dtype=float)
+    if depth.size < 4 or not np.any(np.isfinite(gr)):
+        return []
+    step = float(np.median(np.diff(depth)))
+    n = max(3, int(round(smooth_m / step)))
+    base = running_median(gr, n, min_periods=1)
+    base = np.where(np.isfinite(base), base, np.nanmedian(base) if np.any(np.isfinite(base)) else 0.0)
+    nmin = max(2, int(round(min_zone_m / step)))
+    bounds = list(pelt_mean_breaks(base, min_step_api**2 * nmin / 2.0, nmin))
+    while bounds:
+        edges = [0] + bounds + [depth.size]
+        med = [np.median(base[a:b]) for a, b in zip(edges[:-1], edges[1:])]
+        diffs = np.abs(np.diff(med))
+        k = int(np.argmin(diffs))
+        if diffs[k] >= min_step_api:
+            break
+        del bounds[k]
+    return [int(b) for b in bounds]
+
+
+def tops_bounds(depth_m, tops_m) -> list[int]:
+    """Sample indices of the tops that fall strictly inside the logged interval."""
+    depth = np.asarray(depth_m, dtype=float)
+    idx = np.searchsorted(depth, np.sort(np.asarray(tops_m, dtype=float)))
+    return sorted({int(i) for i in idx if 0 < i < depth.size})
+
+
+def bitsize_bounds(bs_in, *, min_change_in: float = 0.1) -> list[int]:
+    """Sample indices where the bit size changes (a new hole section: the GR baseline of
+    a new hole size, mud and often tool string).  Missing bit-size samples take the last
+    size before them."""
+    bs = pd.Series(np.asarray(bs_in, dtype=float)).ffill().bfill().to_numpy()
+    if not np.any(np.isfinite(bs)):
+        return []
+    return [int(i) + 1 for i in np.flatnonzero(np.abs(np.diff(bs)) > min_change_in)]
+
+
+def zone_bounds(depth_m, gr_api, zoning: str, tops: pd.DataFrame | None = None, *,
+                bs_in=None, **kw):
+    """``(bounds, source, names)``: first-sample indices of zones 2.., how they were
+    found and a name for each zone.
+
+    Every mode but ``none`` also cuts where the bit size changes (``bs_in``, inches, when
+    given).  ``auto`` uses the tops when the well has some inside the interval, else the
+    changepoints of the GR baseline found within each hole section (keywords of
+    :func:`changepoint_bounds`).
+    """
+    if zoning not in ZONINGS:
+        raise SettingsError(f"unknown zoning {zoning!r}; choose one of {', '.join(ZONINGS)}")
+    depth = np.asarray(depth_m, dtype=float)
+    gr = np.asarray(gr_api, dtype=float)
+    if zoning == "none":
+        return [], "whole well", ["whole well"]
+    hole = bitsize_bounds(bs_in) if bs_in is not None else []
+    hole_tag = "bit size + " if hole else ""
+    have_tops = tops is not None and len(tops) > 0
+    t = tops.sort_values("top_m") if have_tops else None
+    top_idx = tops_bounds(depth, t["top_m"]) if have_tops else []
+    if zoning == "tops" or (zoning == "auto" and top_idx):
+        bounds, source = sorted(set(hole) | set(top_idx)), hole_tag + "tops"
+    elif zoning == "tops":
+        bounds, source = hole, hole_tag.rstrip(" +") or "whole well"
+    else:
+        bounds = set(hole)
+        edges = [0] + hole + [depth.size]
+        for a, b in zip(edges[:-1], edges[1:]):
+            bounds |= {a + i for i in changepoint_bounds(depth[a:b], gr[a:b], **kw)}
+        bounds, source = sorted(bounds), hole_tag + "changepoint"
+    names = []
+    for start in [0] + bounds:
+        if t is not None and len(top_idx):
+            above = t[t["top_m"] <= depth[start] + 1e-9]
+            names.append(str(above["name"].iloc[-1]) if len(above) else "above first top")
+        else:
+            names.append(f"zone {len(names) + 1}")
+    return bounds, source, names
+
+
+def pick_endpoints(
+    depth_m,
+    gr_api,
+    bounds: list[int],
+    *,
+    clean: float | str = "p5",
+    shale: float | str = "p95",
+    exclude=None,
+    min_contrast: float = 0.7,
+    min_samples: int = 30,
+    source: str = "whole well",
+    names=None,
+) -> pd.DataFrame:
+    """Clean and shale GR lines for each zone.
+
+    Parameters
+    ----------
+    depth_m, gr_api : array_like
+        Depth (m, increasing) and GR (API).
+    bounds : list of int
+        First-sample indices of zones 2.. (see :func:`zone_bounds`).
+    clean, shale : float or str
+        Endpoint settings: a value in API or a percentile ``"pN"`` of the zone's readings.
+    exclude : array_like of bool, optional
+        Samples not to use in the picks (QC flags).
+    min_contrast : float, default 0.7
+        A zone whose shale-minus-clean contrast is below this fraction of the whole
+        well's is one-sided (nearly all shale or all sand): it keeps the line on its own
+        side (shale line for a zone shalier than the well's midline, clean line otherwise)
+        and sets the other at the whole-well contrast from it.
+    min_samples : int
+        Zones with fewer usable samples take the whole-well lines.
+
+    Returns
+    -------
+    DataFrame with columns :data:`PICK_COLUMNS` (``nd_shale_separation`` left NaN).
+    """
+    depth = np.asarray(depth_m, dtype=float)
+    gr = np.asarray(gr_api, dtype=float)
+    ok = np.isfinite(gr) if exclude is None else np.isfinite(gr) & ~np.asarray(exclude, bool)
+    if not ok.any():
+        raise SettingsError("no GR sample passed QC; cannot pick clean and shale lines")
+    c_all = resolve_endpoint(clean, gr[ok])
+    s_all = resolve_endpoint(shale, gr[ok])
+    if c_all >= s_all:
+        raise SettingsError(
+            f"GR clean line {c_all:.1f} API is not below the shale line {s_all:.1f} API; "
+            "set --gr-clean/--gr-shale"
+        )
+    span = s_all - c_all
+    mid = 0.5 * (c_all + s_all)
+    starts = [0] + list(bounds)
+    stops = list(bounds) + [depth.size]
+    step = float(np.median(np.diff(depth))) if depth.size > 1 else 0.0
+    names = names or [f"zone {k + 1}" for k in range(len(starts))]
+    rows = []
+    for k, (a, b) in enumerate(zip(starts, stops)):
+        use = ok[a:b]
+        g = gr[a:b][use]
+        note = ""
+        if g.size < min_samples:
+            c, s, note = c_all, s_all, "too few usable samples: whole-well lines"
+        else:
+            c, s = resolve_endpoint(clean, g), resolve_endpoint(shale, g)
+            if s - c < min_contrast * span:
+                if np.median(g) >= mid:
+                    c, note = s - span, "one-sided (shaly) zone: clean line set from the well's contrast"
+                else:
+                    s, note = c + span, "one-sided (sandy) zone: shale line set from the well's contrast"
+        rows.append((names[k], depth[a], depth[b - 1] + step, source, c, s, int(use.sum()),
+                     int((~use & np.isfinite(gr[a:b])).sum() + (~np.isfinite(gr[a:b])).sum()),
+                     np.nan, note))
+    return pd.DataFrame(rows, columns=PICK_COLUMNS)
+
+
+def lines_per_sample(depth_m, picks: pd.DataFrame, column: str) -> np.ndarray:
+    """The value of ``column`` of the zone each sample falls in."""
+    depth = np.asarray(depth_m, dtype=float)
+    k = np.searchsorted(picks["top_m"].to_numpy(), depth, side="right") - 1
+    return picks[column].to_numpy(dtype=float)[np.clip(k, 0, len(picks) - 1)]
+
+
+def nd_shale_separation(depth_m, gr_api, separation, picks: pd.DataFrame, *, exclude=None,
+                        shale_quantile: float = 70.0, min_samples: int = 30) -> np.ndarray:
+    """Neutron-density separation (PHIN - PHID) of shale in each zone of ``picks``: the
+    median separation over the zone's usable samples whose GR is at or above the zone's
+    ``shale_quantile`` percentile (the shaliest by GR).  NaN where a zone has too few
+    such samples or the separation is not positive (no usable shale point)."""
+    depth = np.asarray(depth_m, dtype=float)
+    gr = np.asarray(gr_api, dtype=float)
+    sep = np.asarray(separation, dtype=float)
+    ok = np.isfinite(gr) & np.isfinite(sep)
+    if exclude is not None:
+        ok &= ~np.asarray(exclude, dtype=bool)
+    zone = np.searchsorted(picks["top_m"].to_numpy(), depth, side="right") - 1
+    out = np.full(len(picks), np.nan)
+    for k in range(len(picks)):
+        m = ok & (zone == k)
+        if m.sum() < min_samples:
+            continue
+        hot = m & (gr >= np.percentile(gr[m], shale_quantile))
+        if hot.sum() >= min_samples // 3:
+            v = float(np.median(sep[hot]))
+            out[k] = v if v > 0.02 else np.nan
+    return out
+

@@ -1,0 +1,175 @@
+"""Shale smear indicators over the triangle diagram and per sand-sand window.
+
+Source beds
+    The **shale layers of the blocked column** (lithology ``shale``); heteroliths and
+    sands are not counted.  A source bed has *passed* a point of the fault at footwall
+    depth ``z`` and throw ``t`` when it overlaps the slipped interval ``(z - t, z)`` (for a
+    reverse fault, ``(z, z - t)``): its footwall cut-off lies above the point and its
+    hanging-wall cut-off below it (normal fault), so smear from either can reach the point.
+
+Shale smear factor (Lindsay, Murphy, Walsh & Watterson 1993)
+    ``SSF = throw / source-bed thickness``.  Not additive: with several beds the smallest
+    value (the thickest bed that has passed) governs, so
+    ``SSF(z, t) = |t| / max thickness of the source beds that have passed``; ``inf``
+    where none has.  Smears may be incomplete above about 7.
+
+Clay smear potential (Bouvier et al. 1989; Fulljames, Zijerveld & Franssen 1997)
+    ``CSP = sum over source beds of thickness^2 / smear distance``, in **metres** here
+    (thickness and distance both in metres).  Each bed contributes from both of its
+    cut-offs: from the footwall cut-off at distance ``|z - m|`` and from the hanging-wall
+    cut-off at ``|m + t - z|``, where ``m`` is the bed's mid-depth and distances are
+    measured vertically along the fault (as throw is).  A distance is never taken below half
+    the bed's thickness (the point then faces the bed's own cut-off).  0 where no bed has
+    passed.
+
+References
+----------
+1. Lindsay, N.G., Murphy, F.C., Walsh, J.J. and Watterson, J. (1993). Outcrop studies of
+   shale smears on fault surfaces. IAS Special Publication 15, 113-123.
+2. Bouvier, J.D., Kaars-Sijpesteijn, C.H., Kluesner, D.F., Onyejekwe, C.C. and van der Pal,
+   R.C. (1989). Three-dimensional seismic interpretation and fault sealing investigations,
+   Nun River Field, Nigeria. AAPG Bulletin 73(11), 1397-1414.
+3. Fulljames, J.R., Zijerveld, L.J.J. and Franssen, R.C.M.W. (1997). Fault seal processes:
+   systematic analysis of fault seals over geological and production time scales. NPF
+   Special Publication 7, 51-59.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+import pandas as pd
+
+from logprep.model import Layers
+from logprep.fault.sgr import contact_polygon
+
+SSF_INCOMPLETE = 7.0
+"""SSF above which smears may be incomplete (Lindsay et al. 1993)."""
+
+SMEAR_COLUMNS = ["ssf_min", "ssf_max", "csp_min_m", "csp_max_m"]
+"""Columns added to ``juxtapositions.csv`` (after the existing ones)."""
+
+
+def shale_smear_factor(throw_m, thickness_m):
+    """SSF = |throw| / source-bed thickness (Lindsay et al. 1993); ``inf`` for zero
+    thickness.  Inputs broadcast; both in metres."""
+    t = np.abs(np.asarray(throw_m, float))
+    h = np.asarray(thickness_m, float)
+    with np.errstate(divide="ignore", invalid="ignore"):
+        return np.where(h > 0, t / np.where(h > 0, h, 1.0), np.inf)
+
+
+def clay_smear_potential_m(thickness_m, distance_m, axis=-1):
+    """CSP = sum of thickness^2 / distance (Bouvier et al. 1989; Fulljames et al. 1997),
+    in metres when both inputs are metres.  Summed along ``axis``."""
+    h = np.asarray(thickness_m, float)
+    d = np.asarray(distance_m, float)
+    return np.sum(h * h / d, axis=axis)
+
+
+def source_beds(layers: Layers) -> np.ndarray:
+    """Indices of the source beds: the shale layers."""
+    return np.flatnonzero(np.array(layers.lithology) == "shale")
+
+
+def _bed_terms(top, base, z, t):
+    """Passed mask, SSF-relevant thickness and CSP term of one bed at points (z, t)."""
+    thick = base - top
+    mid = 0.5 * (top + base)
+    lo, hi = np.minimum(z, z - t), np.maximum(z, z - t)
+    passed = (top < hi) & (base > lo) & (t != 0)
+    half = 0.5 * thick
+    d_fw = np.maximum(np.abs(z - mid), half)
+    d_hw = np.maximum(np.abs(mid + t - z), half)
+    term = thick * thick * (1.0 / d_fw + 1.0 / d_hw)
+    return passed, thick, term
+
+
+def smear_at(layers: Layers, depth_m, throw_m) -> tuple[np.ndarray, np.ndarray]:
+    """SSF and CSP (m) at footwall depths and throws (broadcast), one column.
+
+    Returns ``(ssf, csp_m)`` as float64 arrays; see the module notes for the definitions.
+    """
+    z, t = np.broadcast_arrays(np.asarray(depth_m, float), np.asarray(throw_m, float))
+    tmax = np.zeros(z.shape)
+    csp = np.zeros(z.shape)
+    for i in source_beds(layers):
+        passed, thick, term = _bed_terms(layers.top_m[i], layers.base_m[i], z, t)
+        tmax = np.where(passed, np.maximum(tmax, thick), tmax)
+        csp += np.where(passed, term, 0.0)
+    return shale_smear_factor(t, tmax), csp
+
+
+def smear_fields(layers: Layers, depth_m, throw_m, dtype=np.float32):
+    """SSF and CSP (m) on the grid ``depth_m`` (rows) x ``throw_m`` (columns).
+
+    Work is limited to the rows a bed can reach (``z`` within the bed's top and base plus
+    the largest throw), so the cost is about (source beds) x (rows reached) x (throws).
+    """
+    z = np.asarray(depth_m, float)
+    t = np.asarray(throw_m, float)
+    tmax = np.zeros((z.size, t.size))
+    csp = np.zeros((z.size, t.size))
+    reach = float(np.abs(t).max(initial=0.0))
+    for i in source_beds(layers):
+        top, base = layers.top_m[i], layers.base_m[i]
+        r0, r1 = np.searchsorted(z, [top - reach, base + reach], side="left")
+        rows = slice(r0, r1 + 1)
+        passed, thick, term = _bed_terms(top, base, z[rows, None], t[None, :])
+        np.maximum(tmax[rows], np.where(passed, thick, 0.0), out=tmax[rows])
+        csp[rows] += np.where(passed, term, 0.0)
+    ssf = shale_smear_factor(t[None, :], tmax)
+    return ssf.astype(dtype), csp.astype(dtype)
+
+
+def _window_extremes(layers: Layers, w, throw_max_m: float, n_edge: int) -> tuple[float, ...]:
+    """SSF and CSP extremes over one window's contact area.
+
+    Inside a sand-sand contact area the beds that have passed are fixed (every layer
+    strictly between the two sands), so SSF = t / T_max is extreme at the window's throw
+    limits, and CSP = f(z) + g(z - t) with f decreasing and g increasing in their
+    arguments has no interior extremum: it is evaluated along the boundary of the area
+    (``n_edge`` points per edge, vertices included; the maximum is at a vertex, exact).
+    """
+    fi, hi = int(w.footwall_layer), int(w.hangingwall_layer)
+    lo_i, hi_i = min(fi, hi), max(fi, hi)
+    between = [i for i in source_beds(layers) if lo_i < i < hi_i]
+    if not between:
+        return np.inf, np.inf, 0.0, 0.0
+    tmax = float(np.max(layers.thickness_m[between]))
+    ssf_min = float(w.throw_min_m) / tmax
+    ssf_max = float(w.throw_max_m) / tmax
+    poly = contact_polygon(w.footwall_top_m, w.footwall_base_m, w.hangingwall_top_m,
+                           w.hangingwall_base_m, max(0.0, float(w.throw_min_m)), throw_max_m)
+    if len(poly) == 0:
+        return ssf_min, ssf_max, np.nan, np.nan
+    s = np.linspace(0.0, 1.0, n_edge)[:, None]
+    edges = [poly[k - 1] + s * (poly[k] - poly[k - 1]) for k in range(len(poly))]
+    pts = np.concatenate(edges)
+    pts = pts[pts[:, 0] > 0]  # t -> 0 has no smear distance along the fault
+    if len(pts) == 0:
+        return ssf_min, ssf_max, np.nan, np.nan
+    sub = Layers(layers.top_m[between], layers.base_m[between], layers.vsh[between],
+                 ["shale"] * len(between))
+    _, csp = smear_at(sub, pts[:, 1], pts[:, 0])
+    return ssf_min, ssf_max, float(csp.min()), float(csp.max())
+
+
+def window_smear(layers: Layers, windows: pd.DataFrame, throw_max_m: float,
+                 n_edge: int = 201) -> pd.DataFrame:
+    """Columns :data:`SMEAR_COLUMNS` for each row of ``windows`` (same index):
+    ``ssf_min``/``ssf_max`` (inf where no source bed lies between the two sands, e.g. a
+    sand against itself) and ``csp_min_m``/``csp_max_m`` (metres; 0 there)."""
+    rows = [_window_extremes(layers, w, throw_max_m, n_edge) for w in windows.itertuples()]
+    return pd.DataFrame(rows, columns=SMEAR_COLUMNS, index=windows.index, dtype=float)
+
+
+def with_smear_fields(grid, layers: Layers):
+    """A copy of an :class:`~logprep.fault.sgr.SgrField` carrying ``ssf`` and ``csp_m`` on its
+    axes (float32; NaN where the SGR is NaN, i.e. the slipped interval leaves the log)."""
+    from dataclasses import replace
+
+    ssf, csp = smear_fields(layers, grid.depth_m, grid.throw_m)
+    off = np.isnan(grid.sgr_pct)
+    ssf[off] = np.nan
+    csp[off] = np.nan
+    return replace(grid, extra={**grid.extra, "ssf": ssf, "csp_m": csp})

@@ -1,0 +1,116 @@
+"""The seal-capacity page of the screening sheet: column height against throw for the
+riskiest sand-sand windows, the verdict thresholds as lines, and the cautions that go with
+the numbers.  Builds a Figure only; never saves."""
+
+from __future__ import annotations
+
+import textwrap
+
+import numpy as np
+from matplotlib.figure import Figure
+
+from logprep.fault.capacity import window_columns_m, window_throws
+from logprep.fault.envelope import envelope_c, fault_zone_pressure_bar, column_height_m
+from logprep.report.draw import PAGE_SIZE_IN, draw_footer, riskiest_windows
+from logprep.units import M_PER_FT
+
+N_CURVES = 8
+# Okabe & Ito (2008) colours, black last
+CURVE_COLOURS = ["#D55E00", "#0072B2", "#009E73", "#E69F00", "#CC79A7", "#56B4E9", "#F0E442", "#000000"]
+LINESTYLES = ["-", "--", "-.", ":"]
+
+CAPACITY_CAUTION = (
+    "Screening estimate only. Fault-zone pressure uses the envelope of Bretan, Yielding & Jones (2003), "
+    "a bound drawn around published calibration data from other basins (SGR against across-fault "
+    "pressure differences), with burial classes < 3.0, 3.0-3.5 and > 3.5 km; it is not a calibration "
+    "for this basin. Calibrate to local pressure data (across-fault pressure differences, contacts) "
+    "before relying on any column height. Fault-rock permeabilities (after Manzocchi et al. 1999; "
+    "Sperrevik et al. 2002) use equations recalled from memory, not verified. Defer to local "
+    "regulations and licensed professional judgement, especially for CO2 storage containment decisions."
+)
+
+
+def _fluid_contrasts(result):
+    s = result.settings
+    return {
+        "oil": s.capacity.brine_density_kgm3 - s.capacity.oil_density_kgm3,
+        "gas": s.capacity.brine_density_kgm3 - s.capacity.gas_density_kgm3,
+        "co2": None,  # per window: fixed or from the equation of state
+    }
+
+
+def draw_column_panel(ax, result, fluid: str, numbers) -> None:
+    """Leak-point column height against throw for the windows ``numbers`` (from 1), one
+    fluid, with the heights equivalent to the two verdict thresholds as lines (for the
+    weakest burial class among the windows drawn, i.e. the largest C)."""
+    s, w_all = result.settings, result.windows
+    per = 1.0 if s.capacity.length_unit == "m" else 1.0 / M_PER_FT
+    drho_fixed = _fluid_contrasts(result)[fluid]
+    weakest_c = None
+    for i, k in enumerate(numbers):
+        w = w_all.iloc[k - 1]
+        c = float(envelope_c(w.burial_depth_m, s.capacity.envelope_class_bounds_m, s.capacity.envelope_class_c))
+        weakest_c = c if weakest_c is None else max(weakest_c, c)
+        drho = drho_fixed if drho_fixed is not None else s.capacity.brine_density_kgm3 - w.co2_density_kgm3
+        t = window_throws(w)
+        h = window_columns_m(result.layers, w, c, [drho], t, s.capacity.envelope_sgr_scale_pct)[0] * per
+        ax.plot(t, h, color=CURVE_COLOURS[i % len(CURVE_COLOURS)],
+                ls=LINESTYLES[(i // len(CURVE_COLOURS)) % len(LINESTYLES)], lw=1.4,
+                label=f"#{k} ({w.verdict})")
+    if weakest_c is not None:
+        drho = drho_fixed if drho_fixed is not None else s.capacity.brine_density_kgm3 - float(
+            np.nanmedian(w_all.iloc[[k - 1 for k in numbers]]["co2_density_kgm3"]))
+        for sgr, style, word in ((s.capacity.sgr_leak_pct, ":", "leak below"), (s.capacity.sgr_threshold_pct, "--", "seal from")):
+            p = fault_zone_pressure_bar(sgr, 0.0, sgr_scale_pct=s.capacity.envelope_sgr_scale_pct,
+                                        class_bounds_m=(0.0,), class_c=(weakest_c, weakest_c))
+            h = float(column_height_m(p, drho, 0.0)) * per
+            ax.axhline(h, color="#555555", ls=style, lw=1)
+            ax.text(0.99, h, f"SGR {sgr:g} % ({word}), C {weakest_c:g}", fontsize=6.5,
+                    ha="right", va="bottom", color="#555555", transform=ax.get_yaxis_transform())
+    ax.set_yscale("log")
+    tmax = max(float(w_all.iloc[k - 1].throw_max_m) for k in numbers) if numbers else s.field.throw_max_m
+    ax.set_xlim(0, min(s.field.throw_max_m, 1.05 * tmax))
+    ax.set_xlabel("Throw (m)")
+    ax.set_title(f"{fluid.upper() if fluid == 'co2' else fluid.capitalize()}", loc="left", fontsize=10)
+    ax.grid(True, which="both", color="#E5E5E5", lw=0.5)
+    ax.tick_params(labelsize=7.5)
+
+
+def _density_note(result) -> str:
+    s = result.settings
+    co2 = (f"CO2 {s.capacity.co2_density_kgm3:g}" if s.capacity.co2_density_mode == "fixed" else
+           f"CO2 from Span & Wagner (1996) via CoolProp at each contact (hydrostatic, "
+           f"{s.capacity.surface_temp_c:g} C + {s.capacity.geothermal_gradient_c_per_km:g} C/km)")
+    return (f"Densities (kg/m3): brine {s.capacity.brine_density_kgm3:g}, oil {s.capacity.oil_density_kgm3:g}, "
+            f"gas {s.capacity.gas_density_kgm3:g}, {co2}. Envelope FZP (bar) = 10^(SGR/{s.capacity.envelope_sgr_scale_pct:g} - C), "
+            f"C {', '.join(f'{c:g}' for c in s.capacity.envelope_class_c)} for burial classes split at "
+            f"{', '.join(f'{b:g}' for b in s.capacity.envelope_class_bounds_m)} m.")
+
+
+def seal_capacity_page(result) -> list[Figure]:
+    """Page 2: column heights against throw for the riskiest windows (numbers as on page 1)."""
+    s = result.settings
+    fig = Figure(figsize=PAGE_SIZE_IN)
+    fig.suptitle(f"{result.well.name}: seal capacity of the sand-sand windows", x=0.015, ha="left",
+                 fontsize=14, fontweight="bold")
+    numbers = riskiest_windows(result, N_CURVES)
+    unit = s.capacity.length_unit
+    fig.text(0.015, 0.915,
+             f"Leak-point column height ({unit}) above the free-water level that the fault rock can hold, "
+             f"against throw, for the {len(numbers)} windows with the lowest SGR (numbers as on page 1). "
+             "At each throw the weakest point of the whole contact limits the column.",
+             fontsize=9)
+    if not numbers:
+        fig.text(0.015, 0.8, "No sand-sand windows between different sands: nothing to draw.", fontsize=11)
+    else:
+        gs = fig.add_gridspec(1, 3, left=0.05, right=0.985, top=0.87, bottom=0.36, wspace=0.15)
+        axes = [fig.add_subplot(gs[i]) for i in range(3)]
+        for ax, fluid in zip(axes, ("oil", "gas", "co2")):
+            draw_column_panel(ax, result, fluid, numbers)
+        axes[0].set_ylabel(f"Column height ({unit})")
+        axes[0].legend(fontsize=7, loc="upper right", title="window (verdict)", title_fontsize=7)
+    fig.text(0.015, 0.30, _density_note(result), fontsize=8, va="top")
+    fig.text(0.015, 0.26, textwrap.fill("CAUTION (seal capacity): " + CAPACITY_CAUTION, 190),
+             fontsize=9, va="top", color="#7A1F00", linespacing=1.5)
+    draw_footer(fig, result)
+    return [fig]

@@ -1,0 +1,188 @@
+"""Writing results: every file is written to a temporary name and moved into place, so an
+interrupted run never leaves a half-written file and earlier results stay until replaced."""
+
+from __future__ import annotations
+
+import io
+from contextlib import contextmanager
+import os
+import re
+import tempfile
+import warnings
+from pathlib import Path
+
+import matplotlib
+import pandas as pd
+from matplotlib.backends.backend_agg import FigureCanvasAgg
+from matplotlib.backends.backend_pdf import PdfPages
+
+from logprep.errors import OutputError
+from logprep.fault.juxtaposition import WINDOW_COLUMNS
+from logprep.io.survey import true_stratigraphic_thickness_m
+from logprep.report.lasexport import las_bytes
+from logprep.clay.qc import any_flag, layer_fraction, qc_table
+from logprep.io.safetext import safe_cell
+
+SUMMARY_COLUMNS = ["well", "source", "status", "message", "layers", "sand_sand_windows",
+                   "min_window_sgr_pct", "folder", "warnings"]
+
+
+def write_bytes_atomic(path: Path, data: bytes) -> None:
+    """Write ``data`` to ``path`` through a temporary file in the same folder."""
+    path = Path(path)
+    try:
+        path.parent.mkdir(parents=True, exist_ok=True)
+        fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=path.parent)
+        try:
+            with os.fdopen(fd, "wb") as f:
+                f.write(data)
+            os.replace(tmp, path)
+        except BaseException:
+            Path(tmp).unlink(missing_ok=True)
+            raise
+    except OSError as exc:
+        raise OutputError(f"{path}: cannot write ({exc.strerror or exc})") from exc
+
+
+def prepare_out_dir(out_dir: str | Path) -> Path:
+    """Make the output folder (and its parents) before any work, so that an ``--out`` that
+    names a file or a folder that cannot be made fails at once with one message."""
+    out = Path(out_dir)
+    if out.exists() and not out.is_dir():
+        raise OutputError(f"{out}: a file of that name exists; --out must name a folder")
+    try:
+        out.mkdir(parents=True, exist_ok=True)
+    except OSError as exc:
+        raise OutputError(f"{out}: cannot make the output folder ({exc.strerror or exc}); "
+                          "choose another --out") from exc
+    return out
+
+
+def csv_bytes(frame: pd.DataFrame) -> bytes:
+    """A table as CSV; text cells made safe (control characters escaped, formula-like
+    text neutralised: see :func:`logprep.io.safetext.safe_cell`)."""
+    text_cols = [c for c in frame.columns if frame[c].dtype == object or pd.api.types.is_string_dtype(frame[c])]
+    if text_cols:
+        frame = frame.copy()
+        for c in text_cols:
+            frame[c] = frame[c].map(safe_cell).astype(object)
+    return frame.to_csv(index=False, float_format="%.10g", lineterminator="\n").encode(
+        "utf-8", errors="backslashreplace")
+
+
+@contextmanager
+def _missing_glyphs_quiet():
+    """A context in which matplotlib's one-warning-per-character about letters missing from
+    the font (a well or file named in a script the font lacks) is not printed: those
+    letters are drawn as boxes, and the tables keep the names intact."""
+    with warnings.catch_warnings():
+        warnings.filterwarnings("ignore", message=r"Glyph \d+ .*missing from font",
+                                category=UserWarning)
+        yield
+
+
+def plain_text():
+    """A context in which figures made draw all text as plain text: well names, mnemonics
+    and paths from files (``A$\\foo$``) are never read as math markup.  Make every figure
+    inside it (the setting is read when a text is created)."""
+    return matplotlib.rc_context({"text.parse_math": False})
+
+
+def pdf_bytes(figures) -> bytes:
+    buf = io.BytesIO()
+    with _missing_glyphs_quiet(), \
+            PdfPages(buf, metadata={"Creator": "logprep", "Title": "fault-seal screening sheet"}) as pdf:
+        for fig in figures:
+            FigureCanvasAgg(fig)
+            pdf.savefig(fig)
+    return buf.getvalue()
+
+
+def png_bytes(figure, dpi: int = 110) -> bytes:
+    buf = io.BytesIO()
+    FigureCanvasAgg(figure)
+    with _missing_glyphs_quiet():
+        figure.savefig(buf, format="png", dpi=dpi)
+    return buf.getvalue()
+
+
+_UNSAFE = re.compile(r"[^A-Za-z0-9._-]+")
+
+RESERVED_NAMES = ("summary.csv", "pairs_summary.csv", "logprep-settings.toml")
+"""Files a run writes at the top of its output folder: no well folder may take their name."""
+
+
+def folder_name(source: str | Path, taken: set[str]) -> str:
+    """A safe, unique folder name from a file stem: unsafe characters become ``_``,
+    leading dots are dropped, and ``-2``, ``-3``... make it unique among ``taken``
+    (compared case-insensitively).  The name is added to ``taken``."""
+    base = _UNSAFE.sub("_", Path(source).stem).lstrip(".") or "well"
+    name, k = base, 2
+    while name.lower() in taken or name.lower() in RESERVED_NAMES:
+        name, k = f"{base}-{k}", k + 1
+    taken.add(name.lower())
+    return name
+
+
+def well_folder_name(source: str | Path, taken: set[str]) -> str:
+    """:func:`folder_name` for a well: never ``pair_...``, the prefix of well-pair folders,
+    so a file named like a pair cannot share a folder with one."""
+    stem = Path(source).stem
+    if _UNSAFE.sub("_", stem).lstrip(".").lower().startswith("pair_"):
+        source = f"well_{stem}.las"
+    return folder_name(source, taken)
+
+
+def qc_with_warnings(result) -> pd.DataFrame:
+    """``qc.csv``: the flagged runs, then one ``warning`` row per reader warning."""
+    table = qc_table(result.depth_m, result.qc_flags)
+    notes = getattr(result, "warnings", ())
+    if not notes:
+        return table
+    extra = pd.DataFrame([{"flag": "warning", "meaning": w, "action": "see the meaning"}
+                          for w in notes], columns=table.columns)
+    return pd.concat([table.astype(object), extra.astype(object)], ignore_index=True)
+
+
+def well_tables(result) -> dict[str, pd.DataFrame]:
+    """The machine-readable tables of one well, by file name."""
+    windows = result.windows.copy()
+    extra = [c for c in windows.columns if c not in WINDOW_COLUMNS]
+    layers = result.layers.to_frame()
+    layers["tst_m"] = true_stratigraphic_thickness_m(layers["thickness_m"], result.settings.input.bed_dip_deg)
+    if result.qc_flags:
+        layers["qc_flagged_fraction"] = layer_fraction(
+            result.depth_m, any_flag(result.qc_flags), result.layers.top_m, result.layers.base_m)
+    return {
+        "layers.csv": layers,
+        "juxtapositions.csv": windows[WINDOW_COLUMNS + extra],
+        "qc.csv": qc_with_warnings(result),
+        "picks.csv": result.picks,
+    }
+
+
+def render_well(result, sheet_builder=None) -> dict[str, bytes]:
+    """Every output file of one well as bytes, rendered in memory first so that a failure
+    while drawing leaves nothing half-written.  With no ``sheet_builder`` the sheet
+    (``sheet.pdf``, ``sheet.png``) is left out: tables only, much faster."""
+    files = {name: csv_bytes(frame) for name, frame in well_tables(result).items()}
+    if getattr(result, "grid", None) is not None:
+        files["sgr_field.npz"] = result.grid.npz_bytes()
+    if sheet_builder is not None:
+        with plain_text():
+            pages = sheet_builder(result)
+            files["sheet.pdf"] = pdf_bytes(pages)
+            files["sheet.png"] = png_bytes(pages[0])
+    files["curves.las"] = las_bytes(result)
+    return files
+
+
+def write_well(files: dict[str, bytes], well_dir: Path) -> None:
+    for name, data in files.items():
+        write_bytes_atomic(Path(well_dir) / name, data)
+
+
+def write_summary(rows: list[dict], out_dir: Path) -> Path:
+    path = Path(out_dir) / "summary.csv"
+    write_bytes_atomic(path, csv_bytes(pd.DataFrame(rows, columns=SUMMARY_COLUMNS)))
+    return path
