@@ -194,3 +194,27 @@ def test_values_no_instrument_reads_are_bounded(tmp_path):
     r = screen_file(HOSTILE / "good_gr_1e308_values.las")
     assert np.all(np.isfinite(r.gr_api) | np.isnan(r.gr_api)) and np.nanmax(r.gr_api) < 1000
     assert any("set missing" in w for w in r.warnings)
+
+
+def test_short_fuzz_of_the_reader_and_science():
+    # 150 seeded mutations of the corpus (bench/fuzz_reader.py runs thousands): only
+    # logprep's own errors may come out
+    sys.path.insert(0, str(Path(__file__).resolve().parents[1] / "bench"))
+    import fuzz_reader
+
+    from logprep.errors import LogprepError
+    from logprep.io.las import read_well
+    from logprep.run.pipeline import screen_well
+
+    rng = __import__("random").Random(15)
+    base = fuzz_reader.sources()
+    import tempfile
+
+    with tempfile.TemporaryDirectory() as tmp:
+        path = Path(tmp) / "m.las"
+        for _ in range(150):
+            path.write_bytes(fuzz_reader.mutate(rng.choice(base), rng))
+            try:
+                screen_well(read_well(path))
+            except LogprepError:
+                pass
