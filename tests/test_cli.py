@@ -134,11 +134,15 @@ def test_console_script_version_and_default_run(tmp_path):
     cmd = [str(exe)] if exe.exists() else [sys.executable, "-m", "logprep.cli"]
     v = subprocess.run(cmd + ["--version"], capture_output=True, text=True)
     assert v.returncode == 0 and v.stdout.startswith("logprep ")
-    r = subprocess.run(cmd + ["screen", "--throw-max", "60"], cwd=tmp_path, capture_output=True,
-                       text=True, timeout=600)
+    r = subprocess.run(cmd + ["screen", "--throw-max", "60", "--realisations", "30"], cwd=tmp_path,
+                       capture_output=True, text=True, timeout=600)
     assert r.returncode == 0, r.stderr
     assert (tmp_path / "screening" / "summary.csv").exists()
     assert len(list((tmp_path / "screening").glob("*/sheet.pdf"))) >= 4
+    # the bundled faults file: a fault page per fault, and faults.csv
+    assert "screened 2 fault(s) in 30 realisations each: 2 ok" in r.stdout
+    pages = sorted(p.name for p in (tmp_path / "screening" / "faults").iterdir())
+    assert pages == ["Harrowmere_Fault.pdf", "Harrowmere_Fault.png", "Ostrel_Fault.pdf", "Ostrel_Fault.png"]
 
 
 def test_readme_test_command_is_what_ci_runs():

@@ -34,20 +34,23 @@ class BatchReport:
 
 
 def screen_one(path: Path, folder: str, out_dir: Path, settings: ScreenSettings, tops=None,
-               sheets: bool = True, time_limit_s: float | None = None) -> dict:
+               sheets: bool = True, faults=None, spreads=None,
+               time_limit_s: float | None = None) -> dict:
     """Screen one file and write its folder; return its ``summary.csv`` row.
 
     Whatever goes wrong becomes a row with ``status`` ``error`` and a one-line message
     naming the file (see :func:`logprep.run.contain.contained_screen`); nothing is written for
-    that file.  ``sheets=False`` writes the tables only; ``time_limit_s`` bounds the
-    well's time.  Top-level so that worker processes can run it.
+    that file.  ``sheets=False`` writes the tables only.  ``faults`` (fault results by
+    footwall well, see :func:`logprep.run.faults.with_fault_work`) adds their pages to the
+    sheet; ``spreads`` appends the uncertainty columns to ``juxtapositions.csv``;
+    ``time_limit_s`` bounds the well's time.  Top-level so that worker processes can run it.
     """
     row = {"well": folder, "source": str(path), "status": "ok", "message": "",
            "layers": "", "sand_sand_windows": "", "min_window_sgr_pct": "", "folder": "",
            "warnings": ""}
-    result, failed = contained_screen(lambda: _screen_and_write(path, folder, out_dir, settings,
-                                                                tops, sheets),
-                                      path, time_limit_s)
+    result, failed = contained_screen(
+        lambda: _screen_and_write(path, folder, out_dir, settings, tops, sheets, faults, spreads),
+        path, time_limit_s)
     if failed is not None:
         row.update(status="error", message=failed.message, internal=failed.internal,
                    traceback=failed.traceback)
@@ -61,10 +64,11 @@ def screen_one(path: Path, folder: str, out_dir: Path, settings: ScreenSettings,
     return row
 
 
-def _screen_and_write(path, folder, out_dir, settings, tops, sheets):
+def _screen_and_write(path, folder, out_dir, settings, tops, sheets, faults, spreads):
     from logprep.report.sheet import build_sheet  # drawing is imported only when needed
+    from logprep.run.faults import with_fault_work
 
-    result = screen_file(path, settings, tops=tops)
+    result = with_fault_work(screen_file(path, settings, tops=tops), faults, spreads)
     files_out = render_well(result, build_sheet if sheets else None)
     write_well(files_out, Path(out_dir) / folder)
     return result
@@ -79,6 +83,8 @@ def screen_paths(
     progress: Callable[[Iterable], Iterable] | None = None,
     jobs: int = 1,
     sheets: bool = True,
+    faults=None,
+    spreads=None,
     time_limit_s: float | None = None,
 ) -> BatchReport:
     """Screen every LAS file under ``paths`` and write results below ``out_dir``.
@@ -95,7 +101,9 @@ def screen_paths(
     Paths passed over while scanning (``out_dir`` itself, logprep's own exports,
     duplicates, unreadable folders) are in :attr:`BatchReport.skipped`.  ``jobs`` > 1 screens wells
     in that many worker processes (results are the same as with one); ``sheets=False``
-    skips the PDF/PNG sheets (tables and fields only) for fast large batches.
+    skips the PDF/PNG sheets (tables and fields only) for fast large batches.  ``faults``
+    and ``spreads`` as for :func:`screen_one` (the spreads are also written to the settings
+    file's ``[uncertainty]`` table).
     """
     out = Path(out_dir)
     scan = scan_las_files(paths, out)
@@ -111,7 +119,7 @@ def screen_paths(
     tops = read_tops(settings.input.tops_file) if settings.input.tops_file else None
     if settings.input.survey_dir:
         check_survey_dir(settings.input.survey_dir)
-    write_settings(out / SETTINGS_FILE_NAME, settings)
+    write_settings(out / SETTINGS_FILE_NAME, settings, uncertainty=spreads)
     taken: set[str] = set()
     folders = [well_folder_name(f, taken) for f in files]
     rows: list[dict | None] = [None] * len(files)
@@ -129,12 +137,14 @@ def screen_paths(
     if jobs == 1 or len(files) == 1:
         iterator = progress(range(len(files))) if progress else range(len(files))
         for i in iterator:
-            record(i, screen_one(files[i], folders[i], out, settings, tops, sheets, time_limit_s))
+            record(i, screen_one(files[i], folders[i], out, settings, tops, sheets, faults,
+                                 spreads, time_limit_s))
     else:
         from concurrent.futures import ProcessPoolExecutor, as_completed
 
         with ProcessPoolExecutor(max_workers=min(jobs, len(files))) as pool:
-            futures = {pool.submit(screen_one, f, name, out, settings, tops, sheets, time_limit_s): i
+            futures = {pool.submit(screen_one, f, name, out, settings, tops, sheets, faults,
+                                   spreads, time_limit_s): i
                        for i, (f, name) in enumerate(zip(files, folders))}
             done = as_completed(futures)
             for fut in (progress(done) if progress else done):

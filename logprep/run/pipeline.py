@@ -67,6 +67,7 @@ class WellScreening:
     gr_shale_line: np.ndarray | None = None
     grid: SgrField | None = None
     depth_reference: str = "as logged"
+    faults: tuple = ()
 
     @property
     def warnings(self) -> tuple[str, ...]:
