@@ -164,11 +164,11 @@ def read_well_name(path: str | Path) -> str:
 def read_well_header(path: str | Path) -> dict[str, str]:
     """The ``~Well`` items of a LAS file (mnemonic -> value as text), reading the header
     only; empty when the file cannot be read as LAS."""
-    path = Path(path)
     try:
+        source = load_las_source(path)  # checked, decoded and made safe like read_well
         with warnings.catch_warnings():
             warnings.simplefilter("ignore")
-            las = lasio.read(str(path), ignore_data=True, encoding=_bom_encoding(path))
+            las = lasio.read(source.header + "~A\n")
     except Exception:  # noqa: BLE001 - lasio raises many types for unreadable input
         return {}
     return {item.mnemonic: str(item.value) for item in las.well}
