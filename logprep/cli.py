@@ -9,6 +9,7 @@ from pathlib import Path
 
 from logprep import __version__
 from logprep.errors import LogprepError
+from logprep.io.safetext import escape_line
 from logprep.run.fault_options import add_fault_options, faults_after_batch, faults_before_batch
 
 # the science is imported only where a command or its options need it (fast --version)
@@ -219,27 +220,8 @@ def _progress(stream):
     return lambda files: tqdm(files, unit="well", file=stream)
 
 
-def _print_error(msg: str) -> None:
-    from logprep.io.safetext import escape_line
-
-    print(f"error: {escape_line(msg)}", file=sys.stderr)
-
-
-def _final_line(report, out) -> str:
-    """The run's last line: counts, internal errors and paths skipped while scanning."""
-    from logprep.run.contain import INTERNAL_LOG_NAME
-    from logprep.io.safetext import show_path
-
-    ok = len(report.rows) - len(report.failures)
-    internal = report.internal_errors
-    bugs = (f" ({internal} internal error(s): tracebacks in "
-            f"{show_path(out)}/{INTERNAL_LOG_NAME}, please report)") if internal else ""
-    skipped = f"; {report.scan_line}" if report.scan_line else ""
-    return (f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed{bugs}; "
-            f"results in {show_path(out)}, summary {show_path(report.summary_path)}{skipped}")
-
-
 def cmd_screen(args) -> int:
+    from logprep.run.contain import final_line, print_error
     from logprep.run.batch import screen_paths
     from logprep.io.examples import example_logs_dir
 
@@ -269,20 +251,17 @@ def cmd_screen(args) -> int:
         read_locations(args.locations)  # likewise a bad locations file
     faults = faults_before_batch(args, paths, settings)
     report = screen_paths(
-        paths, args.out, settings,
-        on_error=_print_error,
-        progress=_progress(sys.stderr),
+        paths, args.out, settings, on_error=print_error, progress=_progress(sys.stderr),
         jobs=args.jobs,
-        sheets=not args.no_sheet, **faults.batch_kwargs,
-        time_limit_s=args.well_time_limit,
+        sheets=not args.no_sheet, **faults.batch_kwargs, time_limit_s=args.well_time_limit,
     )
-    print(_final_line(report, args.out))
+    print(final_line(report, args.out))
     failed = bool(report.failures)
     if args.pairs:
         from logprep.run.pairs import screen_pairs
 
         rows = screen_pairs(paths, args.pairs, args.out, settings,
-                            on_error=_print_error, sheets=not args.no_sheet)
+                            on_error=print_error, sheets=not args.no_sheet)
         bad = sum(r["status"] != "ok" for r in rows)
         print(f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed; "
               f"summary {args.out}/pairs_summary.csv")
@@ -357,9 +336,8 @@ def build_parser() -> argparse.ArgumentParser:
     _add_config_option(p)
     p.add_argument("--jobs", type=int, default=1, metavar="N",
                    help="screen wells in N worker processes (default: 1)")
-    p.add_argument("--well-time-limit", type=float, default=900.0, metavar="S",
-                   help="seconds one well may take before it is stopped and reported as an "
-                        "error; 0 for no limit (default: %(default)g)")
+    p.add_argument("--well-time-limit", type=float, default=900.0, metavar="S", help="seconds "
+                   "a well may take before it is stopped as an error; 0 = none (default: %(default)g)")
     p.add_argument("--no-sheet", action="store_true",
                    help="write tables and fields only, no PDF/PNG sheets (fast, for large batches)")
     p.add_argument("--pairs", metavar="FILE",
@@ -430,8 +408,6 @@ def main(argv: list[str] | None = None) -> int:
             warnings.simplefilter("ignore", RuntimeWarning)
             return args.func(args)
     except LogprepError as exc:
-        from logprep.io.safetext import escape_line
-
         print(f"logprep: error: {escape_line(exc)}", file=sys.stderr)
         return EXIT_USAGE
     except KeyboardInterrupt:

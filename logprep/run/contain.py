@@ -13,6 +13,7 @@ processes); elsewhere the well runs without one.
 from __future__ import annotations
 
 import signal
+import sys
 import threading
 import time
 import traceback
@@ -98,3 +99,19 @@ def contained_screen(work, path: Path, time_limit_s: float | None):
             return work(), None
     except Exception as exc:  # noqa: BLE001 - containment is the point: one well never stops a batch
         return None, failure(exc, path)
+
+
+def print_error(msg: str) -> None:
+    """Print one failure as one escaped ``error:`` line on stderr."""
+    print(f"error: {escape_line(msg)}", file=sys.stderr)
+
+
+def final_line(report, out) -> str:
+    """The run's last line: counts, internal errors and paths skipped while scanning."""
+    ok = len(report.rows) - len(report.failures)
+    internal = report.internal_errors
+    bugs = (f" ({internal} internal error(s): tracebacks in "
+            f"{show_path(out)}/{INTERNAL_LOG_NAME}, please report)") if internal else ""
+    skipped = f"; {report.scan_line}" if report.scan_line else ""
+    return (f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed{bugs}; "
+            f"results in {show_path(out)}, summary {show_path(report.summary_path)}{skipped}")
