@@ -8,6 +8,7 @@ import warnings
 from pathlib import Path
 
 from logprep import __version__
+from logprep.cli_rock import print_tune_summary, rock_options, tune_rock_options
 from logprep.errors import LogprepError
 from logprep.io.safetext import escape_line
 from logprep.run.fault_options import add_fault_options, faults_after_batch, faults_before_batch
@@ -159,8 +160,8 @@ def _pair_options(p: argparse.ArgumentParser, d) -> None:
                         f"hanging-wall well, or average the two (default: {d.field.pair_slip_source})")
 
 
-SETTINGS_OPTION_GROUPS = [_clay_options, _clay_quality_options, _blocking_options, _fault_options,
-                          _capacity_options, _survey_options, _pair_options]
+SETTINGS_OPTION_GROUPS = [_clay_options, _clay_quality_options, rock_options, _blocking_options,
+                          _fault_options, _capacity_options, _survey_options, _pair_options]
 """Each adds one group of options whose ``dest`` is a :class:`ScreenSettings` field and
 whose default is None (not given); add a function here for a new group."""
 
@@ -303,12 +304,9 @@ def cmd_tune(args) -> int:
         sand_cutoffs=ranges.get("sand_sweep", DEFAULT_SAND_CUTOFFS),
         shale_cutoffs=ranges.get("shale_sweep", DEFAULT_SHALE_CUTOFFS),
         min_beds_m=ranges.get("bed_sweep", DEFAULT_MIN_BEDS_M),
+        descriptions=args.rock_file, label_curve=args.label_curve,
     )
-    paths = write_sweep(sweep, args.out)
-    t = sweep.table
-    print(f"{sweep.reference.well.name}: {len(t) - 1} settings swept; "
-          f"{int((t['verdicts_flipped'] == 0).sum()) - 1} keep every window verdict of the reference; "
-          f"table {paths['tune.csv']}, figure {paths['tune.pdf']}")
+    print_tune_summary(sweep, write_sweep(sweep, args.out))
     return EXIT_OK
 
 
@@ -375,6 +373,7 @@ def build_parser() -> argparse.ArgumentParser:
                    help="shale cut-offs to try (default: 0.5:0.8:0.05)")
     p.add_argument("--bed-sweep", dest="bed_sweep", metavar="RANGE",
                    help="minimum bed thicknesses to try, metres (default: 0.5,1,2,4)")
+    tune_rock_options(p)
     _add_config_option(p)
     _add_screen_options(p)
     p.set_defaults(func=cmd_tune)

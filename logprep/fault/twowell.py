@@ -131,8 +131,8 @@ def two_well_windows(fw: Layers, hw: Layers, shift_m: float, throw_max_m: float,
     Hanging-wall depths are the hanging-wall well's own depths; ``throw_*`` are marker
     offsets.  Columns :data:`PAIR_WINDOW_COLUMNS`.
     """
-    fsand = [i for i, x in enumerate(fw.lithology) if x == "sand"]
-    hsand = [i for i, x in enumerate(hw.lithology) if x == "sand"]
+    fsand = [int(i) for i in np.flatnonzero(fw.reservoir)]  # reservoir layers (default: sand)
+    hsand = [int(i) for i in np.flatnonzero(hw.reservoir)]
     fb = np.concatenate(([fw.top_m[0]], fw.base_m))
     hb = np.concatenate(([hw.top_m[0]], hw.base_m))
     rows = []
