@@ -11,6 +11,7 @@ from logprep import __version__
 from logprep.cli_batch import add_batch_options, batch_backend
 from logprep.cli_rock import print_tune_summary, rock_options, tune_rock_options
 from logprep.errors import LogprepError
+from logprep.io.safetext import escape_line
 from logprep.run.fault_options import add_fault_options, faults_after_batch, faults_before_batch
 
 # the science is imported only where a command or its options need it (fast --version)
@@ -211,6 +212,7 @@ def _add_locations_option(p: argparse.ArgumentParser) -> None:
 
 
 def cmd_screen(args) -> int:
+    from logprep.run.contain import final_line, print_error
     from logprep.run.batch import screen_paths
     from logprep.io.examples import example_logs_dir
 
@@ -247,18 +249,15 @@ def cmd_screen(args) -> int:
         progress=Progress("quiet" if args.quiet else "auto", sys.stderr),
         backend=backend, sheets=not args.no_sheet, field=not args.no_field,
         field_smear=args.field_smear, force=args.force, **faults.batch_kwargs,
+        time_limit_s=args.well_time_limit,
     )
-    ok = len(report.rows) - len(report.failures)
-    skipped = (f" ({report.skipped} unchanged since the last run, skipped; --force redoes them)"
-               if report.skipped else "")
-    print(f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed{skipped}; "
-          f"results in {args.out}, summary {report.summary_path}")
+    print(final_line(report, args.out))
     failed = bool(report.failures)
     if args.pairs:
         from logprep.run.pairs import screen_pairs
 
         rows = screen_pairs(paths, args.pairs, args.out, settings,
-                            on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
+                            on_error=print_error,
                             sheets=not args.no_sheet, field=not args.no_field,
                             field_smear=args.field_smear, backend=backend)
         bad = sum(r["status"] != "ok" for r in rows)
@@ -331,6 +330,8 @@ def build_parser() -> argparse.ArgumentParser:
                    help="output folder (default: ./%(default)s)")
     _add_config_option(p)
     add_batch_options(p)
+    p.add_argument("--well-time-limit", type=float, default=900.0, metavar="S", help="seconds "
+                   "a well may take before it is stopped as an error; 0 = none (default: %(default)g)")
     p.add_argument("--pairs", metavar="FILE",
                    help="also screen well pairs across a fault: CSV of footwall, hangingwall and "
                         "marker (a top in both wells, needs --tops) or shift_m; one folder per pair")
@@ -400,7 +401,7 @@ def main(argv: list[str] | None = None) -> int:
             warnings.simplefilter("ignore", RuntimeWarning)
             return args.func(args)
     except LogprepError as exc:
-        print(f"logprep: error: {exc}", file=sys.stderr)
+        print(f"logprep: error: {escape_line(exc)}", file=sys.stderr)
         return EXIT_USAGE
     except KeyboardInterrupt:
         print("logprep: interrupted; files already written are complete", file=sys.stderr)

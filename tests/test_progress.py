@@ -20,7 +20,7 @@ def test_lines_when_not_a_terminal():
     lines = text.splitlines()
     assert lines[0] == "1 of 3 well(s) unchanged since the last run, skipped"
     assert lines[1].startswith("[2/3] HRM-1: ok (5 layers, 2 windows)")
-    assert lines[2] == "[3/3] error: bad.las: not a readable LAS file"
+    assert lines[2] == "error: bad.las: not a readable LAS file"
 
 
 def test_bar_counts_and_keeps_errors():

@@ -81,7 +81,7 @@ def las_bytes(result) -> bytes:
               STRT=f"{depth[0]:.5f}", STOP=f"{depth[-1]:.5f}", STEP=f"{step:.5f}")
     head = buf.getvalue()
     head = head[: head.index("\n", head.index("~A")) + 1]
-    return (head + data_section(columns)).encode()
+    return (head + data_section(columns)).encode("utf-8", errors="backslashreplace")  # undecodable names
 
 
 def data_section(columns: dict[str, tuple]) -> str:

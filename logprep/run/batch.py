@@ -18,8 +18,9 @@ from logprep import __version__
 from logprep.errors import LogprepError
 from logprep.io.survey import check_survey_dir
 from logprep.io.tops import read_tops
-from logprep.report.writers import folder_name, prepare_out_dir, write_summary
+from logprep.report.writers import prepare_out_dir, well_folder_name, write_summary
 from logprep.run.config import SETTINGS_FILE_NAME, write_settings
+from logprep.run.contain import log_internal
 from logprep.run.executor import Backend, TaskLost, run_tasks
 from logprep.run.manifest import (
     Manifest,
@@ -29,6 +30,7 @@ from logprep.run.manifest import (
     tree_sha256,
 )
 from logprep.run.progress import Progress
+from logprep.run.scan import find_las_files, scan_las_files  # noqa: F401 - find_las_files is API
 from logprep.run.settings import ScreenSettings
 from logprep.run.store import clean_leftovers, commit_folder, mark_folder
 from logprep.run.welltask import (
@@ -42,27 +44,6 @@ SUMMARY_EVERY_S = 2.0
 """``summary.csv`` is rewritten at most this often during a run (and always at its end)."""
 
 
-def find_las_files(paths: Iterable[str | Path]) -> list[Path]:
-    """LAS files named directly, or found recursively (``.las`` in any case) below folders,
-    in sorted order without repeats.  A path that does not exist raises
-    :class:`LogprepError`."""
-    found: list[Path] = []
-    for p in map(Path, paths):
-        if p.is_dir():
-            found += sorted(q for q in p.rglob("*") if q.is_file() and q.suffix.lower() == ".las")
-        elif p.is_file():
-            found.append(p)
-        else:
-            raise LogprepError(f"{p}: no such file or folder")
-    seen, unique = set(), []
-    for f in found:
-        key = f.resolve()
-        if key not in seen:
-            seen.add(key)
-            unique.append(f)
-    return unique
-
-
 @dataclass
 class BatchReport:
     """``rows``: the ``summary.csv`` rows in input order; ``skipped``: wells unchanged since
@@ -73,20 +54,29 @@ class BatchReport:
     rows: list[dict]
     skipped: int = 0
     outcomes: dict[str, WellOutcome] = field(default_factory=dict)
+    scan_skipped: list[tuple[str, str]] = field(default_factory=list)
+    scan_line: str | None = None
 
     @property
     def failures(self) -> list[dict]:
         return [r for r in self.rows if r["status"] != "ok"]
 
+    @property
+    def internal_errors(self) -> int:
+        return sum(bool(r.get("internal")) for r in self.rows)
+
 
 def screen_one(path: Path, folder: str, out_dir: Path, settings: ScreenSettings, tops=None,
-               sheets: bool = True, faults=None, spreads=None) -> dict:
+               sheets: bool = True, faults=None, spreads=None,
+               time_limit_s: float | None = None) -> dict:
     """Screen one file and put its folder in place; return its ``summary.csv`` row.
 
-    A :class:`LogprepError` becomes a row with ``status`` ``error`` and a one-line
-    message naming the file; nothing is written for that file.
+    Whatever goes wrong becomes a row with ``status`` ``error`` and a one-line message
+    naming the file (see :func:`logprep.run.contain.contained_screen`); nothing is written
+    for that file.  ``time_limit_s`` bounds the well's time.
     """
-    outcome = screen_well_task(settings, tops, OutputOptions(sheets=sheets), (faults, spreads),
+    outcome = screen_well_task(settings, tops, OutputOptions(sheets=sheets, time_limit_s=time_limit_s),
+                               (faults, spreads),
                                str(path), readable_path(path), folder)
     if outcome.files is not None:
         commit_folder(Path(out_dir), folder, outcome.files)
@@ -132,6 +122,7 @@ def screen_paths(
     backend: Backend | None = None,
     faults=None,
     spreads=None,
+    time_limit_s: float | None = None,
 ) -> BatchReport:
     """Screen every LAS file under ``paths`` and write results below ``out_dir``.
 
@@ -143,8 +134,11 @@ def screen_paths(
     :mod:`logprep.run.config`) and ``out_dir/logprep-manifest.jsonl`` what each folder was made
     from.  Wells unchanged since the last run on ``out_dir`` are skipped unless ``force``.
 
-    A :class:`LogprepError` for one file is recorded (and passed to ``on_error``) and the
-    batch goes on; any other exception is a bug and propagates.  ``jobs`` > 1 screens wells
+    Any failure of one file is recorded (and passed to ``on_error``) and the batch goes on;
+    an unexpected exception (a bug) also appends its traceback to
+    ``logprep-internal-errors.log`` in ``out_dir`` and counts in
+    :attr:`BatchReport.internal_errors`; ``time_limit_s`` bounds each well's time.  Paths
+    passed over while scanning are in :attr:`BatchReport.scan_skipped`.  ``jobs`` > 1 screens wells
     in that many worker processes, ``backend`` on a Dask cluster (results are the same);
     ``sheets=False`` skips the PDF/PNG sheets, ``field=False`` the SGR field file and
     ``field_smear`` adds the smear fields to it.
@@ -152,19 +146,24 @@ def screen_paths(
     settings = settings if settings is not None else ScreenSettings()
     backend = backend if backend is not None else Backend(jobs=jobs)
     out = Path(out_dir)
-    files = find_las_files(paths)
+    scan = scan_las_files(paths, out)
+    files = scan.files
     if not files:
-        raise LogprepError(f"no .las files found in {', '.join(map(str, paths))}")
+        raise LogprepError(f"no .las files found in {', '.join(map(str, paths))}"
+                           + (f" ({scan.summary_line()})" if scan.skipped else "")
+                           + "; name LAS files or folders that hold them")
+    if jobs < 1:
+        raise LogprepError(f"--jobs must be 1 or more (got {jobs})")
     # inputs shared by every well are checked once, before any well is screened
     prepare_out_dir(out)
     clean_leftovers(out)
     tops = read_tops(settings.input.tops_file) if settings.input.tops_file else None
     if settings.input.survey_dir:
         check_survey_dir(settings.input.survey_dir)
-    options = OutputOptions(sheets=sheets, field=field, field_smear=field_smear)
+    options = OutputOptions(sheets=sheets, field=field, field_smear=field_smear, time_limit_s=time_limit_s)
     run_sha = run_settings_sha256(settings, options, faults, spreads)
     taken: set[str] = set()
-    folders = [folder_name(f, taken) for f in files]
+    folders = [well_folder_name(f, taken) for f in files]
     given = [str(f) for f in files]
     inputs = [_input_sha256(f) for f in files]
     progress = progress if progress is not None else Progress("silent")
@@ -188,7 +187,8 @@ def screen_paths(
             manifest.drop(folder)
         write_settings(out / SETTINGS_FILE_NAME, settings, uncertainty=spreads)
         summary = write_summary(rows, out)
-        report = BatchReport(summary, rows, skipped=len(files) - len(todo))
+        report = BatchReport(summary, rows, skipped=len(files) - len(todo),
+                             scan_skipped=scan.skipped, scan_line=scan.summary_line())
         progress.start(len(files), report.skipped)
         # workers read by absolute path (their working folder may differ) but name the
         # file as given; the survey folder likewise
@@ -205,6 +205,8 @@ def screen_paths(
                            "message": f"{given[i]}: {outcome.message}"}
                 else:
                     row = outcome.row
+                    if row.get("traceback"):
+                        log_internal(out, row["source"], row.pop("traceback"))
                     report.outcomes[folders[i]] = outcome
                     if outcome.files is not None:
                         t0 = time.perf_counter()

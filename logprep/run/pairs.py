@@ -22,7 +22,7 @@ from logprep.fault.envelope import depth_datum
 from logprep.fault.pair_capacity import pair_seal_capacity_table
 from logprep.fault.settings import capacity_params
 from logprep.report.writers import (
-    csv_bytes, folder_name, pdf_bytes, png_bytes, with_window_numbers, write_bytes_atomic,
+    csv_bytes, folder_name, pdf_bytes, plain_text, png_bytes, with_window_numbers, write_bytes_atomic,
 )
 from logprep.io.tops import well_key
 from logprep.fault.twowell import PairError, marker_shift_m, two_well_field, two_well_windows
@@ -116,9 +116,10 @@ def pair_task(settings, tops, options, pair: dict, fw_file: tuple[str, str],
         if options.sheets:
             from logprep.report.pair_sheet import PairScreening, build_pair_sheet
 
-            pages = build_pair_sheet(PairScreening(fw, hw, shift, pair["marker"] or "", windows,
-                                                   grid, settings))
-            files.update({"sheet.pdf": pdf_bytes(pages), "sheet.png": png_bytes(pages[0])})
+            with plain_text():
+                pages = build_pair_sheet(PairScreening(fw, hw, shift, pair["marker"] or "", windows,
+                                                       grid, settings))
+                files.update({"sheet.pdf": pdf_bytes(pages), "sheet.png": png_bytes(pages[0])})
     except LogprepError as exc:
         msg = str(exc).splitlines()[0]
         for given, readable in (fw_file, hw_file):

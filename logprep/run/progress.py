@@ -64,8 +64,8 @@ class Progress:
         elif self.mode == "lines":
             width = len(str(self.total))
             head = f"[{self.done:>{width}}/{self.total}]"
-            if status != "ok":
-                self._line(f"{head} error: {message}")
+            if status != "ok":  # the same `error: FILE: ...` line as in every other mode
+                self._line(f"error: {message}")
             else:
                 tail = f" ({detail})" if detail else ""
                 self._line(f"{head} {name}: {status}{tail} {time.perf_counter() - self._t0:.1f} s")

@@ -14,11 +14,9 @@ import socket
 import sys
 import time
 from dataclasses import dataclass, field, replace
+from pathlib import Path
 
-from logprep.errors import LogprepError
 
-SUMMARY_COLUMNS = ["well", "source", "status", "message", "layers", "sand_sand_windows",
-                   "min_window_sgr_pct", "folder"]
 
 STAGES = ("ingest", "compute", "drawing", "encoding")
 """Timed stages of a well task (seconds each): reading the LAS file; the screening science;
@@ -34,6 +32,9 @@ class OutputOptions:
     sheets: bool = True
     field: bool = True
     field_smear: bool = False
+    time_limit_s: float | None = None
+    """Seconds one well may take (None or 0: no limit); not an output choice, so it is left
+    out of :meth:`to_dict` and of the run's settings hash."""
 
     def to_dict(self) -> dict:
         return {"sheets": self.sheets, "field": self.field, "field_smear": self.field_smear}
@@ -53,7 +54,7 @@ class WellOutcome:
 
 def summary_row(folder: str, given: str) -> dict:
     return {"well": folder, "source": given, "status": "ok", "message": "", "layers": "",
-            "sand_sand_windows": "", "min_window_sgr_pct": "", "folder": ""}
+            "sand_sand_windows": "", "min_window_sgr_pct": "", "folder": "", "warnings": ""}
 
 
 def peak_rss_mb() -> float:
@@ -66,33 +67,33 @@ def peak_rss_mb() -> float:
     return rss / (1024 * 1024) if sys.platform == "darwin" else rss / 1024
 
 
-def one_line(exc: Exception, given: str, readable: str) -> str:
-    """The first line of an error message, naming the file as the user gave it."""
-    msg = str(exc).splitlines()[0] if str(exc) else type(exc).__name__
-    msg = msg.replace(readable, given)
-    return msg if given in msg else f"{given}: {msg}"
-
-
 def screen_well_task(settings, tops, options: OutputOptions, fault_work: tuple, given: str,
                      readable: str, folder: str) -> WellOutcome:
     """Screen the LAS file at ``readable`` (named ``given``) for folder ``folder``.
 
     ``settings``, ``tops`` (a tops table or None) and ``fault_work`` (``(faults, spreads)``,
     see :func:`logprep.run.faults.with_fault_work`) are shared by the batch.  A
-    :class:`~logprep.errors.LogprepError` becomes a row with ``status`` ``error`` and no
-    files; any other exception is a bug and propagates.
+    Whatever goes wrong (see :func:`logprep.run.contain.contained_screen`) becomes a row
+    with ``status`` ``error`` and no files; an unexpected exception also carries its
+    traceback (``row["traceback"]``, logged by the batch) and ``options.time_limit_s``
+    bounds the well's time.
     """
     from logprep.io.las import read_well
     from logprep.report.writers import pdf_bytes, png_bytes, render_well
     from logprep.run.pipeline import screen_well
 
+    from logprep.report.writers import plain_text
+    from logprep.run.contain import contained_screen
+
     row = summary_row(folder, given)
     t: dict[str, float] = dict.fromkeys(STAGES, 0.0)
     worker = f"{socket.gethostname()}:{os.getpid()}"
     t0 = time.perf_counter()
-    try:
+
+    def work():
         well = read_well(readable, gr_curve=settings.input.gr_curve, depth_unit=settings.input.depth_unit)
         well = replace(well, source=given)
+        t["ingest"] = time.perf_counter() - t0
         t1 = time.perf_counter()
         result = screen_well(well, settings, tops=tops)
         if any(w is not None for w in fault_work):
@@ -100,21 +101,31 @@ def screen_well_task(settings, tops, options: OutputOptions, fault_work: tuple, 
 
             result = with_fault_work(result, *fault_work)
         t2 = time.perf_counter()
+        t["compute"] = t2 - t1
         files = render_well(result, None, field=options.field, field_smear=options.field_smear)
         t3 = time.perf_counter()
+        t["encoding"] = t3 - t2
         if options.sheets:
             from logprep.report.sheet import build_sheet
 
-            pages = build_sheet(result)
-            files["sheet.pdf"] = pdf_bytes(pages)
-            files["sheet.png"] = png_bytes(pages[0])
-        t4 = time.perf_counter()
-    except LogprepError as exc:
-        row.update(status="error", message=one_line(exc, given, readable))
-        t["ingest"] = time.perf_counter() - t0
+            with plain_text():  # text from files is never read as math markup
+                pages = build_sheet(result)
+                files["sheet.pdf"] = pdf_bytes(pages)
+                files["sheet.png"] = png_bytes(pages[0])
+        t["drawing"] = time.perf_counter() - t3
+        return result, files
+
+    done, failed = contained_screen(work, Path(given), options.time_limit_s)
+    if failed is not None:
+        msg = failed.message.replace(readable, given)
+        row.update(status="error", message=msg, internal=failed.internal,
+                   traceback=failed.traceback)
+        if not any(t.values()):
+            t["ingest"] = time.perf_counter() - t0
         return WellOutcome(row, None, t, peak_rss_mb(), worker)
-    t.update(ingest=t1 - t0, compute=t2 - t1, encoding=t3 - t2, drawing=t4 - t3)
+    result, files = done
     cross = result.windows[~result.windows["self_juxtaposed"]]
     row.update(well=result.well.name, layers=len(result.layers), sand_sand_windows=len(cross),
-               min_window_sgr_pct=round(result.min_window_sgr_pct, 3), folder=folder)
+               min_window_sgr_pct=round(result.min_window_sgr_pct, 3), folder=folder,
+               warnings="; ".join(getattr(result, "warnings", ())))
     return WellOutcome(row, dict(sorted(files.items())), t, peak_rss_mb(), worker)
