@@ -105,9 +105,26 @@ def two_well_field(fw: Layers, hw: Layers, shift_m: float, *, throw_max_m: float
                     juxtaposition=jux, source=f"two wells, slipped interval from {slip_source}")
 
 
+def _corner_tolerance_m(*depths_m) -> float:
+    """Tolerance (m) for a corner to count as on the contact area: 1e-9 of the deepest
+    depth (at least 1e-9 m), far below any bed thickness and any throw evaluated."""
+    return 1e-9 * max(1.0, *(abs(float(d)) for d in depths_m))
+
+
+SMALLEST_THROW_FRACTION = 1e-6
+"""The smallest throw at which window corners are evaluated, as a fraction of the deepest
+depth (2.2 mm at 2200 m): SGR is a limit at zero throw, and this is 1000 times the corner
+tolerance of :func:`_corner_tolerance_m`, so a point just outside a sand is never taken
+as on its contact."""
+
+
 def _corner_points(a, b, c, e, shift, t_lo, t_hi, z_breaks, y_breaks):
     """Corners of the cells of the contact area ``a <= z <= b, c <= y <= e,
-    t_lo <= z - y + shift <= t_hi`` cut by lines ``z = z_breaks`` and ``y = y_breaks``."""
+    t_lo <= z - y + shift <= t_hi`` cut by lines ``z = z_breaks`` and ``y = y_breaks``.
+
+    ``t_lo`` must exceed the tolerance (:func:`_corner_tolerance_m`) many times over:
+    otherwise a corner on ``z = b`` at throw ``t_lo`` lies within tolerance of the sand
+    but its slipped interval lies in the bed below."""
     zs = np.unique(np.concatenate(([a, b], [v for v in z_breaks if a < v < b])))
     ys = np.unique(np.concatenate(([c, e], [v for v in y_breaks if c < v < e])))
     pts = [(z, y) for z in zs for y in ys]
@@ -116,7 +133,7 @@ def _corner_points(a, b, c, e, shift, t_lo, t_hi, z_breaks, y_breaks):
     for y in ys:
         pts += [(y - shift + t_lo, y), (y - shift + t_hi, y)]
     p = np.array(pts, float)
-    tol = 1e-9 * max(1.0, abs(b), abs(e))
+    tol = _corner_tolerance_m(a, b, c, e)
     t = p[:, 0] - p[:, 1] + shift
     ok = ((p[:, 0] >= a - tol) & (p[:, 0] <= b + tol) & (p[:, 1] >= c - tol) & (p[:, 1] <= e + tol)
           & (t >= t_lo - tol) & (t <= t_hi + tol))
@@ -146,7 +163,8 @@ def two_well_windows(fw: Layers, hw: Layers, shift_m: float, throw_max_m: float,
                 continue
             # footwall source: the interval's lower end z - t = y - shift crosses footwall
             # boundaries; hanging-wall source: its upper end z + shift crosses hanging-wall ones
-            pts = _corner_points(a, b, c, e, shift_m, max(lo, 1e-6), cap,
+            t_small = SMALLEST_THROW_FRACTION * max(1.0, abs(a), abs(b), abs(c), abs(e))
+            pts = _corner_points(a, b, c, e, shift_m, max(lo, min(t_small, 0.5 * cap)), cap,
                                  z_breaks=hb - shift_m, y_breaks=fb + shift_m)
             s = two_well_sgr_pct(fw, hw, shift_m, pts[:, 0], pts[:, 0] - pts[:, 1] + shift_m, slip_source)
             s = s[np.isfinite(s)]

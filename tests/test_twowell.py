@@ -128,3 +128,27 @@ def test_window_max_contact_within_the_screened_throws():
         w = two_well_windows(A, B, SHIFT, cap, "footwall")
         row = w[(w.footwall_layer == 2) & (w.hangingwall_layer == 0)].iloc[0]
         assert row.max_contact_m == pytest.approx(expect, abs=1e-12)
+
+
+@pytest.mark.parametrize("top_m", [1000.0, 2000.0, 5000.0])
+@pytest.mark.parametrize("source", ["footwall", "hangingwall", "average"])
+def test_sand_against_its_counterpart_at_realistic_depth(top_m, source):
+    # Worked by hand: shale 100 m (Vsh 0.8), sand 20 m (0.10), shale 30 m (0.9), sand 20 m
+    # (0.05), shale 100 m (0.85); the hanging-wall well is the same column 150 m deeper.
+    # A sand facing its own counterpart has only its own rock in the slipped interval
+    # near zero throw and over its whole contact, so its SGR is its Vsh: 10 % and 5 %,
+    # exactly as the single-well windows give for a sand against itself.
+    d = top_m + np.array([0.0, 100.0, 120.0, 150.0, 170.0, 270.0])
+    fw = Layers(d[:-1], d[1:], [0.8, 0.1, 0.9, 0.05, 0.85], ["shale", "sand", "shale", "sand", "shale"])
+    hw = Layers(fw.top_m + 150.0, fw.base_m + 150.0, fw.vsh, fw.lithology)
+    for other, shift in ((hw, 150.0), (fw, 0.0)):
+        w = two_well_windows(fw, other, shift, 300.0, source)
+        own = w[w.footwall_layer == w.hangingwall_layer].set_index("footwall_layer")
+        assert own.loc[1, "sgr_min_pct"] == pytest.approx(10.0, abs=1e-9)
+        assert own.loc[1, "sgr_max_pct"] == pytest.approx(10.0, abs=1e-9)
+        assert own.loc[3, "sgr_min_pct"] == pytest.approx(5.0, abs=1e-9)
+        assert own.loc[3, "sgr_max_pct"] == pytest.approx(5.0, abs=1e-9)
+    single = sand_windows(fw, 300.0)
+    pair = two_well_windows(fw, fw, 0.0, 300.0, source)
+    for col in ("throw_min_m", "throw_max_m", "sgr_min_pct", "sgr_max_pct"):
+        np.testing.assert_allclose(pair[col], single[col], atol=1e-9)
