@@ -267,11 +267,19 @@ def capacity_params(settings) -> CapacityParams:
     )
 
 
+VERDICT_SGR_DECIMALS = 6
+"""SGR is compared with the verdict thresholds after rounding to this many decimals of a
+per cent (1e-6 %, far below any meaningful SGR difference and far above floating-point
+noise), so that a bed of Vsh 0.15, whose mean can come out as 14.999999999999996 %, is
+``uncertain`` at a 15 % leak threshold, not ``leak`` by rounding noise."""
+
+
 def verdict(sgr_min_pct, leak_below_pct: float, seal_from_pct: float) -> np.ndarray:
     """``leak`` where SGR < ``leak_below_pct``, ``seal`` where SGR >= ``seal_from_pct``,
     ``uncertain`` between.  About 15-20 % separates leaking from sealing faults in many
-    calibrations (Yielding et al. 1997; Yielding 2002); the thresholds are settings."""
-    s = np.asarray(sgr_min_pct, float)
+    calibrations (Yielding et al. 1997; Yielding 2002); the thresholds are settings.
+    SGR is rounded to :data:`VERDICT_SGR_DECIMALS` before the comparison."""
+    s = np.round(np.asarray(sgr_min_pct, float), VERDICT_SGR_DECIMALS)
     return np.where(s < leak_below_pct, VERDICTS[0], np.where(s >= seal_from_pct, VERDICTS[2], VERDICTS[1]))
 
 
