@@ -481,7 +481,7 @@ def screen_well(
     cv = clay_volume(well, settings, picks)
     depth = cv.depth_m
     notes = list(cv.notes) + ([survey_note] if survey_note else [])
-    vsh, filled = fill_gaps(depth, cv.vsh)
+    vsh, filled = fill_gaps(depth, cv.vsh, extend_ends=True)
     if filled.any():
         notes.append(
             f"{int(filled.sum())} GR samples missing or replaced after QC; Vsh interpolated there"
