@@ -70,14 +70,21 @@ def read_survey(path: str | Path) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
     return md, inc, np.mod(azi, 360.0)
 
 
-def station_tvd_m(md_m, inc_deg, azi_deg) -> np.ndarray:
-    """TVD (m) at the survey stations by minimum curvature (wellpathpy), with the hole
-    above the first station vertical."""
+def station_positions_m(md_m, inc_deg, azi_deg) -> np.ndarray:
+    """Positions ``(north, east, tvd)`` (m) of the survey stations by minimum curvature
+    (wellpathpy), relative to the first station's horizontal position, with the hole
+    above the first station vertical (TVD = MD there).  Shape ``(n, 3)``."""
     from wellpathpy.mincurve import minimum_curvature
 
     md = np.asarray(md_m, float)
-    tvd, _, _, _ = minimum_curvature(md, np.asarray(inc_deg, float), np.asarray(azi_deg, float))
-    return md[0] + np.asarray(tvd, float)
+    tvd, north, east, _ = minimum_curvature(md, np.asarray(inc_deg, float), np.asarray(azi_deg, float))
+    return np.stack([np.asarray(north, float), np.asarray(east, float), md[0] + np.asarray(tvd, float)], axis=-1)
+
+
+def station_tvd_m(md_m, inc_deg, azi_deg) -> np.ndarray:
+    """TVD (m) at the survey stations by minimum curvature (wellpathpy), with the hole
+    above the first station vertical."""
+    return station_positions_m(md_m, inc_deg, azi_deg)[:, 2]
 
 
 def _unit_vectors(inc_deg, azi_deg) -> np.ndarray:
@@ -85,31 +92,41 @@ def _unit_vectors(inc_deg, azi_deg) -> np.ndarray:
     return np.stack([np.sin(i) * np.cos(a), np.sin(i) * np.sin(a), np.cos(i)], axis=-1)
 
 
+def position_at_md(md_query_m, md_m, inc_deg, azi_deg) -> np.ndarray:
+    """Positions ``(north, east, tvd)`` (m) at any measured depths, along the
+    minimum-curvature arcs between stations: ``r(s) = r1 + R [sin(s b) u1 + (1 - cos(s b))
+    (u2 - cos b u1) / sin b]`` (Sawaryn & Thorogood 2005).  Above the first station the
+    hole is vertical; below the last it continues straight along the last direction.
+    Shape ``md_query_m.shape + (3,)``."""
+    md = np.asarray(md_m, float)
+    q = np.asarray(md_query_m, float)
+    station = station_positions_m(md, inc_deg, azi_deg)
+    u = _unit_vectors(np.asarray(inc_deg, float), np.asarray(azi_deg, float))
+    k = np.clip(np.searchsorted(md, q, side="right") - 1, 0, md.size - 2)
+    L = (md[k + 1] - md[k])[..., None]
+    s = (q - md[k])[..., None]
+    s = s / L
+    u1, u2 = u[k], u[k + 1]
+    cosb = np.clip(np.sum(u1 * u2, axis=-1), -1.0, 1.0)[..., None]
+    b = np.arccos(cosb)
+    small = b < 1e-9
+    bb = np.where(small, 1.0, b)
+    arc = (L / bb) * (np.sin(s * bb) * u1 + (1 - np.cos(s * bb)) * (u2 - cosb * u1) / np.sin(bb))
+    out = station[k] + np.where(small, s * L * u1, arc)
+    above = (q < md[0])[..., None]
+    out = np.where(above, station[0] + (q - md[0])[..., None] * np.array([0.0, 0.0, 1.0]), out)
+    below = (q > md[-1])[..., None]
+    return np.where(below, station[-1] + (q - md[-1])[..., None] * u[-1], out)
+
+
 def tvd_at_md(md_query_m, md_m, inc_deg, azi_deg) -> np.ndarray:
-    """TVD (m) at any measured depths, along the minimum-curvature arcs between stations.
+    """TVD (m) at any measured depths, along the minimum-curvature arcs between stations
+    (the vertical component of :func:`position_at_md`).
 
     Above the first station the hole is vertical; below the last it continues straight
     along the last station's direction.
     """
-    md = np.asarray(md_m, float)
-    q = np.asarray(md_query_m, float)
-    station = station_tvd_m(md, inc_deg, azi_deg)
-    u = _unit_vectors(np.asarray(inc_deg, float), np.asarray(azi_deg, float))
-    k = np.clip(np.searchsorted(md, q, side="right") - 1, 0, md.size - 2)
-    L = md[k + 1] - md[k]
-    s = (q - md[k]) / L
-    c1, c2 = u[k, 2], u[k + 1, 2]
-    cosb = np.clip(np.sum(u[k] * u[k + 1], axis=-1), -1.0, 1.0)
-    b = np.arccos(cosb)
-    small = b < 1e-9
-    bb = np.where(small, 1.0, b)
-    R = L / bb
-    arc = R * (np.sin(s * bb) * c1 + (1 - np.cos(s * bb)) * (c2 - cosb * c1) / np.sin(bb))
-    line = s * L * c1
-    out = station[k] + np.where(small, line, arc)
-    out = np.where(q < md[0], q, out)  # vertical above the first station
-    below = q > md[-1]
-    return np.where(below, station[-1] + (q - md[-1]) * u[-1, 2], out)
+    return position_at_md(md_query_m, md_m, inc_deg, azi_deg)[..., 2]
 
 
 def check_survey_dir(survey_dir: str | Path) -> Path:
@@ -133,12 +150,50 @@ def find_survey(survey_dir: str | Path, *names: str) -> Path | None:
     return None
 
 
-def true_stratigraphic_thickness_m(tvt_m, bed_dip_deg: float):
-    """True stratigraphic thickness from true vertical thickness for beds dipping at
-    ``bed_dip_deg``: ``TST = TVT cos(dip)`` (common practice, no source)."""
+def _check_dip(bed_dip_deg: float) -> None:
     if not 0 <= bed_dip_deg < 90:
         raise SurveyError(f"bed dip must lie within 0 and 90 degrees (got {bed_dip_deg:g})")
+
+
+def true_stratigraphic_thickness_m(tvt_m, bed_dip_deg: float):
+    """True stratigraphic thickness from true vertical thickness for beds dipping at
+    ``bed_dip_deg``: ``TST = TVT cos(dip)`` (common practice, no source).  Exact for a
+    vertical well at any dip azimuth; a deviated well needs
+    :func:`stratigraphic_thickness_along_path_m`."""
+    _check_dip(bed_dip_deg)
     return np.asarray(tvt_m, float) * np.cos(np.radians(bed_dip_deg))
+
+
+def bed_normal(bed_dip_deg: float, dip_azimuth_deg: float) -> np.ndarray:
+    """Unit normal ``(north, east, down)`` of beds dipping ``bed_dip_deg`` towards
+    ``dip_azimuth_deg`` (degrees from north), pointing down-section (derived: the plane
+    holds the dip direction ``(cos d cos a, cos d sin a, sin d)`` and the strike)."""
+    _check_dip(bed_dip_deg)
+    d, a = np.radians(bed_dip_deg), np.radians(dip_azimuth_deg)
+    return np.array([-np.sin(d) * np.cos(a), -np.sin(d) * np.sin(a), np.cos(d)])
+
+
+def straight_hole_tst_m(md_length_m, inc_deg, azi_deg, bed_dip_deg: float, dip_azimuth_deg: float):
+    """True stratigraphic thickness (m) of a straight hole section of measured length
+    ``md_length_m`` at inclination ``inc_deg`` and azimuth ``azi_deg`` through beds of
+    dip ``bed_dip_deg`` towards ``dip_azimuth_deg``:
+    ``TST = L |cos i cos d - sin i sin d cos(azi - dip_azi)|`` (derived: the hole's
+    direction projected on the bed normal).  Drilling down-dip thins, up-dip thickens."""
+    u = _unit_vectors(np.asarray(inc_deg, float), np.asarray(azi_deg, float))
+    return np.asarray(md_length_m, float) * np.abs(u @ bed_normal(bed_dip_deg, dip_azimuth_deg))
+
+
+def stratigraphic_thickness_along_path_m(md_top_m, md_base_m, md_m, inc_deg, azi_deg,
+                                         bed_dip_deg: float, dip_azimuth_deg: float):
+    """True stratigraphic thickness (m) of layers cut by a surveyed well between measured
+    depths ``md_top_m`` and ``md_base_m``: the distance between the parallel bed planes
+    through the two points, ``|(r(base) - r(top)) . n|`` with positions ``r`` along the
+    minimum-curvature path (:func:`position_at_md`) and the bed normal ``n``
+    (:func:`bed_normal`).  Exact for planar parallel beds of one dip."""
+    n = bed_normal(bed_dip_deg, dip_azimuth_deg)
+    top = position_at_md(md_top_m, md_m, inc_deg, azi_deg)
+    base = position_at_md(md_base_m, md_m, inc_deg, azi_deg)
+    return np.abs((base - top) @ n)
 
 
 def well_to_tvd(well, md_m, inc_deg, azi_deg, survey_path: str | Path):

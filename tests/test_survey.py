@@ -123,3 +123,33 @@ def test_screen_on_tvd_with_survey(tmp_path, example_dir):
     np.testing.assert_allclose(layers["tst_m"], layers["thickness_m"] * np.cos(np.radians(20)), rtol=1e-9)
     z = np.load(out / "HRM-5" / "sgr_field.npz")
     assert z["depth_m"][-1] == pytest.approx(tvd_base, abs=1.0)
+
+
+def test_tst_takes_the_well_direction_against_the_dip():
+    # Worked by hand: 10 m MD at 30 deg inclination through beds dipping 20 deg.
+    # TST = 10 |cos30 cos20 - sin30 sin20 cos(azi - dip_azi)|: drilling down-dip (same
+    # azimuth) 10 (0.81380 - 0.17101) = 6.4279 m; up-dip 10 (0.81380 + 0.17101) = 9.8481 m;
+    # along strike 8.1380 m (= TVT cos dip, the vertical-well formula).
+    from logprep.survey import straight_hole_tst_m
+
+    assert straight_hole_tst_m(10.0, 30.0, 90.0, 20.0, 90.0) == pytest.approx(6.4279, abs=1e-4)
+    assert straight_hole_tst_m(10.0, 30.0, 270.0, 20.0, 90.0) == pytest.approx(9.8481, abs=1e-4)
+    assert straight_hole_tst_m(10.0, 30.0, 0.0, 20.0, 90.0) == pytest.approx(8.1380, abs=1e-4)
+    # vertical well: TVT cos dip whatever the azimuths
+    assert straight_hole_tst_m(10.0, 0.0, 0.0, 20.0, 123.0) == pytest.approx(10 * np.cos(np.radians(20)))
+
+
+def test_tst_along_a_surveyed_path():
+    # A survey held at 30 deg inclination, azimuth 090 from 1000 m MD: the stretch
+    # 1100-1110 m MD is straight, so its TST is the hand-worked 6.4279 m down-dip (beds
+    # dipping 20 deg towards 090) and 9.8481 m up-dip (towards 270).
+    from logprep.survey import position_at_md, stratigraphic_thickness_along_path_m, tvd_at_md
+
+    md, inc, azi = np.array([0.0, 1000.0, 1050.0, 2000.0]), np.array([0.0, 0.0, 30.0, 30.0]), np.full(4, 90.0)
+    down = stratigraphic_thickness_along_path_m(1100.0, 1110.0, md, inc, azi, 20.0, 90.0)
+    up = stratigraphic_thickness_along_path_m(1100.0, 1110.0, md, inc, azi, 20.0, 270.0)
+    assert down == pytest.approx(6.4279, abs=1e-4) and up == pytest.approx(9.8481, abs=1e-4)
+    # the 3-D position agrees with the TVD route and moves east only
+    p = position_at_md(np.array([1100.0, 1110.0]), md, inc, azi)
+    np.testing.assert_allclose(p[:, 2], tvd_at_md(np.array([1100.0, 1110.0]), md, inc, azi))
+    assert p[1, 1] - p[0, 1] == pytest.approx(5.0, abs=1e-9) and abs(p[1, 0] - p[0, 0]) < 1e-9
