@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Callable, Iterable
 
@@ -10,7 +10,7 @@ from logprep.config import SETTINGS_FILE_NAME, write_settings
 from logprep.errors import LogprepError
 from logprep.outputs import folder_name, prepare_out_dir, render_well, write_summary, write_well
 from logprep.pipeline import ScreenSettings, screen_file
-from logprep.survey import check_survey_dir
+from logprep.survey import check_survey_dir, unmatched_survey_warnings
 from logprep.tops import read_tops
 
 
@@ -39,6 +39,8 @@ def find_las_files(paths: Iterable[str | Path]) -> list[Path]:
 class BatchReport:
     summary_path: Path
     rows: list[dict]
+    warnings: list[str] = field(default_factory=list)
+    """One-line warnings about shared inputs (a survey that matches no well)."""
 
     @property
     def failures(self) -> list[dict]:
@@ -134,4 +136,9 @@ def screen_paths(
             done = as_completed(futures)
             for fut in (progress(done) if progress else done):
                 record(futures[fut], fut.result())
-    return BatchReport(summary_path=summary, rows=[r for r in rows if r is not None])
+    done_rows = [r for r in rows if r is not None]
+    notes = []
+    if settings.survey_dir:
+        names = [r["well"] for r in done_rows] + [Path(r["source"]).stem for r in done_rows]
+        notes = unmatched_survey_warnings(settings.survey_dir, names)
+    return BatchReport(summary_path=summary, rows=done_rows, warnings=notes)

@@ -242,6 +242,8 @@ def cmd_screen(args) -> int:
         jobs=args.jobs,
         sheets=not args.no_sheet,
     )
+    for msg in report.warnings:
+        print(f"warning: {msg}", file=sys.stderr)
     ok = len(report.rows) - len(report.failures)
     print(f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed; "
           f"results in {args.out}, summary {report.summary_path}")

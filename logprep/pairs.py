@@ -20,7 +20,9 @@ from logprep.csvtable import parse_number, read_csv_table
 from logprep.errors import LogprepError
 from logprep.outputs import csv_bytes, folder_name, pdf_bytes, png_bytes, write_bytes_atomic
 from logprep.tops import well_key
-from logprep.twowell import PairError, marker_shift_m, two_well_field, two_well_windows
+from logprep.twowell import (
+    PairError, check_hanging_wall_down, marker_shift_m, two_well_field, two_well_windows,
+)
 
 PAIRS_SUMMARY_COLUMNS = ["footwall", "hangingwall", "marker", "shift_m", "slip_source", "status",
                          "message", "sand_sand_windows", "min_window_sgr_pct", "folder"]
@@ -148,6 +150,7 @@ def screen_pairs(
                 shift = marker_shift_m(fw.tops, hw.tops, p.marker, p.footwall, p.hangingwall)
             else:
                 shift = parse_number(p.shift_m)
+            check_hanging_wall_down(shift, p.footwall, p.hangingwall, p.marker or None)
             windows = two_well_windows(fw.layers, hw.layers, shift, settings.throw_max_m,
                                        settings.pair_slip_source)
             step = settings.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))

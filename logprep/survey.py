@@ -150,6 +150,22 @@ def find_survey(survey_dir: str | Path, *names: str) -> Path | None:
     return None
 
 
+def unmatched_surveys(survey_dir: str | Path, names) -> list[Path]:
+    """Survey CSVs in ``survey_dir`` that match none of ``names`` (well names and file
+    stems, compared as :func:`find_survey` does): a survey named for a well that is not
+    there, or misspelt, would otherwise be ignored without a word."""
+    folder = check_survey_dir(survey_dir)
+    keys = {well_key(n) for n in names if n}
+    return [p for p in sorted(folder.iterdir()) if p.suffix.lower() == ".csv" and well_key(p.stem) not in keys]
+
+
+def unmatched_survey_warnings(survey_dir: str | Path, names) -> list[str]:
+    """One line per survey of :func:`unmatched_surveys`, naming the file and the fix."""
+    return [f"{p}: survey matches no well screened (names and file stems are matched without "
+            f"case, spaces, '-' or '_'); rename it after its well, or that well is taken as vertical"
+            for p in unmatched_surveys(survey_dir, names)]
+
+
 def _check_dip(bed_dip_deg: float) -> None:
     if not 0 <= bed_dip_deg < 90:
         raise SurveyError(f"bed dip must lie within 0 and 90 degrees (got {bed_dip_deg:g})")

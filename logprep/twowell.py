@@ -62,6 +62,19 @@ def marker_shift_m(fw_tops: pd.DataFrame, hw_tops: pd.DataFrame, marker: str,
     return depth(hw_tops, hw_name) - depth(fw_tops, fw_name)
 
 
+def check_hanging_wall_down(shift_m: float, fw_name: str = "footwall", hw_name: str = "hanging wall",
+                            marker: str | None = None) -> None:
+    """:class:`PairError` when the tie puts the hanging wall up (``shift_m < 0``: the tie
+    horizon shallower in the hanging-wall well).  Two-well screening takes a normal fault,
+    hanging wall down; an up-thrown hanging wall means the wells are the wrong way round
+    or the fault is reverse, and its windows and SGR would be meaningless."""
+    if shift_m < 0:
+        what = f"{marker!r} is {-shift_m:.2f} m shallower" if marker else f"shift_m {shift_m:g} m puts the tie horizon higher"
+        raise PairError(f"the hanging wall is up: {what} in {hw_name} than in {fw_name}; two-well "
+                        "screening takes a normal fault with the hanging wall down: swap footwall and "
+                        "hangingwall if the wells are the wrong way round")
+
+
 def two_well_sgr_pct(fw: Layers, hw: Layers, shift_m: float, depth_m, throw_m,
                      slip_source: str = "footwall"):
     """SGR (%) at footwall depths and throws (broadcast) across two columns.
@@ -167,7 +180,8 @@ def two_well_windows(fw: Layers, hw: Layers, shift_m: float, throw_max_m: float,
             pts = _corner_points(a, b, c, e, shift_m, max(lo, min(t_small, 0.5 * cap)), cap,
                                  z_breaks=hb - shift_m, y_breaks=fb + shift_m)
             s = two_well_sgr_pct(fw, hw, shift_m, pts[:, 0], pts[:, 0] - pts[:, 1] + shift_m, slip_source)
-            s = s[np.isfinite(s)]
+            # SGR of Vsh in [0, 1] lies in [0, 100]; clip the rounding noise (no "-0.0")
+            s = np.clip(s[np.isfinite(s)], 0.0, 100.0)
             rows.append({
                 "footwall_top_m": a, "footwall_base_m": b,
                 "hangingwall_top_m": c, "hangingwall_base_m": e,

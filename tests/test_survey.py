@@ -153,3 +153,13 @@ def test_tst_along_a_surveyed_path():
     p = position_at_md(np.array([1100.0, 1110.0]), md, inc, azi)
     np.testing.assert_allclose(p[:, 2], tvd_at_md(np.array([1100.0, 1110.0]), md, inc, azi))
     assert p[1, 1] - p[0, 1] == pytest.approx(5.0, abs=1e-9) and abs(p[1, 0] - p[0, 0]) < 1e-9
+
+
+def test_unmatched_surveys_are_named(tmp_path):
+    from logprep.survey import unmatched_survey_warnings, unmatched_surveys
+
+    for name in ("HRM-4.csv", "hrm_5.csv", "HRM-44.csv", "notes.txt"):
+        (tmp_path / name).write_text("md_m,inc_deg,azi_deg\n0,0,0\n100,1,0\n")
+    assert [p.name for p in unmatched_surveys(tmp_path, ["HRM-4", "HRM 5"])] == ["HRM-44.csv"]
+    (msg,) = unmatched_survey_warnings(tmp_path, ["HRM-4", "HRM 5"])
+    assert "HRM-44.csv: survey matches no well" in msg and "\n" not in msg
