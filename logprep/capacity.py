@@ -70,8 +70,10 @@ CAPACITY_COLUMNS = [
     "burial_depth_m", "fzp_bar", "column_oil_m", "column_gas_m", "column_co2_m", "verdict",
     "co2_density_kgm3", "fault_rock_throw_m", "fault_rock_thickness_m",
     "fault_rock_perm_md", "fault_rock_perm_sperrevik_md", "trans_multiplier",
+    "fault_rock_outside_calibration",
 ]
 """Columns added to ``juxtapositions.csv`` (after the window columns), in order."""
+_TEXT_COLUMNS = ("verdict", "fault_rock_outside_calibration")
 
 
 # ----------------------------------------------------------------------------- envelope
@@ -365,6 +367,8 @@ def _window_capacity(layers: Layers, w, p: CapacityParams, datum_m: float, co2_r
         "fault_rock_throw_m": d_m, "fault_rock_thickness_m": tf,
         "fault_rock_perm_md": k_m, "fault_rock_perm_sperrevik_md": k_s,
         "trans_multiplier": tm,
+        "fault_rock_outside_calibration": faultrock.calibration_note(
+            sgr_frac, d_m, burial, k_s, k_m, p.matrix_perm_md),
     }
 
 
@@ -413,7 +417,7 @@ def seal_capacity_table(windows: pd.DataFrame, layers: Layers, params: CapacityP
         rows.append(_window_capacity(layers, w, params, datum_m, rho))
     extra = pd.DataFrame(rows, columns=CAPACITY_COLUMNS, index=windows.index)
     for col in CAPACITY_COLUMNS:
-        out[col] = extra[col] if len(windows) else pd.Series(dtype=object if col == "verdict" else float)
+        out[col] = extra[col] if len(windows) else pd.Series(dtype=object if col in _TEXT_COLUMNS else float)
     if length_unit == "ft":
         for fluid in FLUIDS:
             out[f"column_{fluid}_ft"] = out[f"column_{fluid}_m"] / LENGTH_UNITS["ft"]
