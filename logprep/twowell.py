@@ -30,6 +30,7 @@ import pandas as pd
 from logprep.errors import LogprepError
 from logprep.juxtaposition import (
     _PAIR_CODE, WINDOW_COLUMNS, cumulative_clay, juxtaposition_throw_range, layer_index, max_contact_m,
+    reservoir_mask,
     sgr_from_cumulative_pct,
 )
 from logprep.model import Layers
@@ -154,15 +155,15 @@ def _corner_points(a, b, c, e, shift, t_lo, t_hi, z_breaks, y_breaks):
 
 
 def two_well_windows(fw: Layers, hw: Layers, shift_m: float, throw_max_m: float,
-                     slip_source: str = "footwall") -> pd.DataFrame:
+                     slip_source: str = "footwall", heterolith_ntg: float | None = None) -> pd.DataFrame:
     """Every footwall-sand / hanging-wall-sand pair that touches for a throw in
     ``(0, throw_max_m]``, with the exact SGR extremes over its contact area.
 
     Hanging-wall depths are the hanging-wall well's own depths; ``throw_*`` are marker
     offsets.  Columns :data:`PAIR_WINDOW_COLUMNS`.
     """
-    fsand = [i for i, x in enumerate(fw.lithology) if x == "sand"]
-    hsand = [i for i, x in enumerate(hw.lithology) if x == "sand"]
+    fsand = [int(i) for i in np.flatnonzero(reservoir_mask(fw, heterolith_ntg))]
+    hsand = [int(i) for i in np.flatnonzero(reservoir_mask(hw, heterolith_ntg))]
     fb = np.concatenate(([fw.top_m[0]], fw.base_m))
     hb = np.concatenate(([hw.top_m[0]], hw.base_m))
     rows = []
