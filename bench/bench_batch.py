@@ -17,9 +17,10 @@ from pathlib import Path
 import lasio
 from timing import best_time_s
 
-from logprep.batch import find_las_files, screen_paths
-from logprep.examples import example_logs_dir
-from logprep.pipeline import ScreenSettings, screen_file
+from logprep.run.batch import find_las_files, screen_paths
+from logprep.io.examples import example_logs_dir
+from logprep.run.pipeline import screen_file
+from logprep.run.settings import ScreenSettings
 
 
 def best_of(repeat, fn):

@@ -11,7 +11,7 @@ import time
 
 import numpy as np
 
-from logprep.blocking import noise_sd, pelt_mean_breaks
+from logprep.changepoint import noise_sd, pelt_mean_breaks
 
 
 def synthetic_vsh(n, random_state=0):

@@ -1,7 +1,7 @@
 """Benchmark: the SGR field of a 3,000 m column at 0.1524 m sampling, throws 0-300 m in
 0.5 m steps (about 19,700 x 601 = 11.8 M cells, 47 MB as float32).
 
-Prints the time of :func:`logprep.sgr.sgr_field_pct` (curve and layers routes) as ratios
+Prints the time of :func:`logprep.fault.sgr.sgr_field_pct` (curve and layers routes) as ratios
 against baselines measured in the same run:
 
 (a) memory floor: one cumulative sum plus one write of a float32 array of the grid's size
@@ -22,9 +22,9 @@ import numpy as np
 
 from timing import best_time_s
 
-from logprep.blocking import block_cutoff, sample_edges_m
-from logprep.juxtaposition import cumulative_clay
-from logprep.sgr import cumulative_clay_curve, sgr_field_pct, throw_axis_m
+from logprep.layers.blocking import block_cutoff
+from logprep.fault.juxtaposition import cumulative_clay
+from logprep.fault.sgr import cumulative_clay_curve, sgr_field_pct, throw_axis_m
 
 STEP_M = 0.1524
 COLUMN_M = 3000.0
@@ -77,7 +77,7 @@ def main() -> None:
         out.fill(0.0)
 
     t_floor = best(floor)
-    del grid, out
+    grid = out = None  # free the floor arrays before the kernel runs
     t_curve = best(lambda: sgr_field_pct(bounds, clay, STEP_M, throw))
     t_layers = best(lambda: sgr_field_pct(lb, lc, STEP_M, throw))
 

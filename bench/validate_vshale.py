@@ -15,7 +15,7 @@ Reads labelled open wells (never copied into the repository):
   data, KGS licence (see its KGS_LICENSE.md).
 
 Each well is scored by balanced accuracy of the call "Vsh < 0.5 is sand"
-(:mod:`logprep.validation`) for the naive whole-well P5/P95 linear baseline and for
+(:mod:`logprep.clay.scoring`) for the naive whole-well P5/P95 linear baseline and for
 logprep's default settings (``ScreenSettings()``), printed side by side with medians.
 
     python bench/validate_vshale.py [OPEN_LOGS_DIR]      # default ../shared/data/open_logs
@@ -36,10 +36,11 @@ from pathlib import Path
 import numpy as np
 import pandas as pd
 
-from logprep.lasread import read_well
+from logprep.io.las import read_well
 from logprep.model import WellLog
-from logprep.pipeline import ScreenSettings, clay_volume
-from logprep.validation import balanced_accuracy, baseline_vsh
+from logprep.clay.stage import clay_volume
+from logprep.run.settings import ScreenSettings
+from logprep.clay.scoring import balanced_accuracy, baseline_vsh
 
 REPO = Path(__file__).resolve().parents[1]
 FORCE_SAND, FORCE_SHALE = 30000, 65000
@@ -75,7 +76,7 @@ def score_well(well: WellLog, label, sand_codes, shale_codes, settings=ScreenSet
     label = np.asarray(label, dtype=float)
     is_sand, is_shale = np.isin(label, sand_codes), np.isin(label, shale_codes)
     base = balanced_accuracy(baseline_vsh(well.gr_api), is_sand, is_shale)
-    cv = clay_volume(well, settings)
+    cv = clay_volume(well, settings.clay)
     i0 = int(np.searchsorted(well.depth_m, cv.depth_m[0]))
     sl = slice(i0, i0 + cv.depth_m.size)
     default = balanced_accuracy(cv.vsh, is_sand[sl], is_shale[sl])

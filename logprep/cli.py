@@ -7,10 +7,10 @@ import sys
 import warnings
 
 from logprep import __version__
-from logprep.blocking import BLOCKING_METHODS
+from logprep.layers.blocking import BLOCKING_METHODS
 from logprep.errors import LogprepError
-from logprep.sgr import SGR_FIELD_SOURCES
-from logprep.vshale import TRANSFORMS
+from logprep.fault.sgr import SGR_FIELD_SOURCES
+from logprep.clay.vshale import TRANSFORMS
 
 EXIT_OK, EXIT_SOME_FAILED, EXIT_USAGE = 0, 1, 2
 
@@ -18,11 +18,11 @@ EXIT_OK, EXIT_SOME_FAILED, EXIT_USAGE = 0, 1, 2
 def _clay_options(p: argparse.ArgumentParser, d) -> None:
     g = p.add_argument_group("clay volume")
     g.add_argument("--transform", dest="transform", choices=list(TRANSFORMS),
-                   help=f"IGR to Vsh transform (default: {d.transform})")
+                   help=f"IGR to Vsh transform (default: {d.clay.transform})")
     g.add_argument("--gr-clean", dest="gr_clean", metavar="VALUE|pN",
-                   help=f"clean-sand GR line: API value or percentile such as p5 (default: {d.gr_clean})")
+                   help=f"clean-sand GR line: API value or percentile such as p5 (default: {d.clay.gr_clean})")
     g.add_argument("--gr-shale", dest="gr_shale", metavar="VALUE|pN",
-                   help=f"shale GR line: API value or percentile such as p95 (default: {d.gr_shale})")
+                   help=f"shale GR line: API value or percentile such as p95 (default: {d.clay.gr_shale})")
     g.add_argument("--gr-curve", dest="gr_curve", metavar="MNEMONIC",
                    help="gamma-ray curve to use (default: first of the known GR mnemonics)")
     g.add_argument("--depth-unit", dest="depth_unit", choices=["m", "ft"],
@@ -34,16 +34,16 @@ def _clay_options(p: argparse.ArgumentParser, d) -> None:
 def _blocking_options(p: argparse.ArgumentParser, d) -> None:
     g = p.add_argument_group("blocking")
     g.add_argument("--blocking", dest="blocking", choices=list(BLOCKING_METHODS),
-                   help=f"blocking method (default: {d.blocking})")
+                   help=f"blocking method (default: {d.layers.blocking})")
     g.add_argument("--sand-cutoff", dest="sand_cutoff", type=float, metavar="VSH",
-                   help=f"Vsh at or below which a sample is sand (default: {d.sand_cutoff})")
+                   help=f"Vsh at or below which a sample is sand (default: {d.layers.sand_cutoff})")
     g.add_argument("--shale-cutoff", dest="shale_cutoff", type=float, metavar="VSH",
-                   help=f"Vsh at or above which a sample is shale (default: {d.shale_cutoff})")
+                   help=f"Vsh at or above which a sample is shale (default: {d.layers.shale_cutoff})")
     g.add_argument("--min-bed", dest="min_bed_m", type=float, metavar="M",
-                   help=f"minimum layer thickness in metres; thinner beds merge (default: {d.min_bed_m})")
+                   help=f"minimum layer thickness in metres; thinner beds merge (default: {d.layers.min_bed_m})")
     g.add_argument("--changepoint-penalty", dest="changepoint_penalty", type=float, metavar="X",
                    help="changepoint blocking: cost of one change of mean Vsh as a multiple of "
-                        f"noise variance x ln(samples); larger gives fewer layers (default: {d.changepoint_penalty})")
+                        f"noise variance x ln(samples); larger gives fewer layers (default: {d.layers.changepoint_penalty})")
     g.add_argument("--honour-tops", dest="honour_tops", action=argparse.BooleanOptionalAction,
                    help="force a layer boundary at every formation top from --tops (default: off)")
 
@@ -51,22 +51,22 @@ def _blocking_options(p: argparse.ArgumentParser, d) -> None:
 def _fault_options(p: argparse.ArgumentParser, d) -> None:
     g = p.add_argument_group("fault")
     g.add_argument("--throw-max", dest="throw_max_m", type=float, metavar="M",
-                   help=f"largest throw screened, metres (default: {d.throw_max_m})")
+                   help=f"largest throw screened, metres (default: {d.field.throw_max_m})")
     g.add_argument("--sgr-threshold", dest="sgr_threshold_pct", type=float, metavar="PCT",
                    help=f"SGR (%%) below which a window is flagged; verdict 'seal' from here up "
-                        f"(default: {d.sgr_threshold_pct})")
+                        f"(default: {d.capacity.sgr_threshold_pct})")
     g.add_argument("--sgr-field-from", dest="sgr_field_source", choices=list(SGR_FIELD_SOURCES),
                    help="clay source of the SGR field (sgr_field.npz, triangle diagram): blocked "
-                        f"layers or the continuous Vsh curve (default: {d.sgr_field_source})")
+                        f"layers or the continuous Vsh curve (default: {d.field.sgr_field_source})")
     g.add_argument("--field-depth-step", dest="field_depth_step_m", type=float, metavar="M",
                    help="row spacing of the SGR field in metres, rounded to whole log samples "
-                        f"(default: {d.field_depth_step_m})")
+                        f"(default: {d.field.field_depth_step_m})")
     g.add_argument("--field-throw-step", dest="field_throw_step_m", type=float, metavar="M",
-                   help=f"throw spacing of the SGR field in metres (default: {d.field_throw_step_m})")
+                   help=f"throw spacing of the SGR field in metres (default: {d.field.field_throw_step_m})")
 
 
 def _capacity_options(p: argparse.ArgumentParser, d) -> None:
-    from logprep.capacity import CO2_DENSITY_MODES
+    from logprep.fault.envelope import CO2_DENSITY_MODES
     from logprep.units import LENGTH_UNITS
 
     g = p.add_argument_group(
@@ -80,58 +80,58 @@ def _capacity_options(p: argparse.ArgumentParser, d) -> None:
                        help=f"{fluid.upper() if fluid == 'co2' else fluid} density (default: {getattr(d, attr):g})")
     g.add_argument("--co2-density-mode", dest="co2_density_mode", choices=list(CO2_DENSITY_MODES),
                    help="CO2 density: the fixed value, or from an equation of state at each "
-                        f"contact's pressure and temperature (needs CoolProp) (default: {d.co2_density_mode})")
+                        f"contact's pressure and temperature (needs CoolProp) (default: {d.capacity.co2_density_mode})")
     g.add_argument("--surface-temp", dest="surface_temp_c", type=float, metavar="DEGC",
-                   help=f"temperature at sea level for --co2-density-mode eos (default: {d.surface_temp_c:g})")
+                   help=f"temperature at sea level for --co2-density-mode eos (default: {d.capacity.surface_temp_c:g})")
     g.add_argument("--geothermal-gradient", dest="geothermal_gradient_c_per_km", type=float,
-                   metavar="DEGC/KM", help=f"geothermal gradient (default: {d.geothermal_gradient_c_per_km:g})")
+                   metavar="DEGC/KM", help=f"geothermal gradient (default: {d.capacity.geothermal_gradient_c_per_km:g})")
     g.add_argument("--max-burial", dest="max_burial_m", type=float, metavar="M",
                    help="maximum burial depth for the pressure envelope (default: each contact's "
                         "depth below sea level, or as logged when the header has no elevation)")
     g.add_argument("--envelope-scale", dest="envelope_sgr_scale_pct", type=float, metavar="PCT",
-                   help=f"SGR per decade of fault-zone pressure (default: {d.envelope_sgr_scale_pct:g})")
+                   help=f"SGR per decade of fault-zone pressure (default: {d.capacity.envelope_sgr_scale_pct:g})")
     g.add_argument("--envelope-bounds", dest="envelope_class_bounds_m", metavar="M,M",
                    help="burial class boundaries, metres (default: "
-                        f"{','.join(f'{v:g}' for v in d.envelope_class_bounds_m)})")
+                        f"{','.join(f'{v:g}' for v in d.capacity.envelope_class_bounds_m)})")
     g.add_argument("--envelope-c", dest="envelope_class_c", metavar="C,C,C",
                    help="envelope constant C per burial class, shallow to deep (default: "
-                        f"{','.join(f'{v:g}' for v in d.envelope_class_c)})")
+                        f"{','.join(f'{v:g}' for v in d.capacity.envelope_class_c)})")
     g.add_argument("--sgr-leak", dest="sgr_leak_pct", type=float, metavar="PCT",
                    help="verdict 'leak' below this window SGR; 'seal' from --sgr-threshold up; "
-                        f"'uncertain' between (default: {d.sgr_leak_pct:g})")
+                        f"'uncertain' between (default: {d.capacity.sgr_leak_pct:g})")
     g.add_argument("--length-unit", dest="length_unit", choices=list(LENGTH_UNITS),
-                   help=f"unit of column heights on the sheet; ft adds column_*_ft (default: {d.length_unit})")
+                   help=f"unit of column heights on the sheet; ft adds column_*_ft (default: {d.capacity.length_unit})")
     g.add_argument("--cell-length", dest="cell_length_m", type=float, metavar="M",
-                   help=f"cell length for the transmissibility multiplier (default: {d.cell_length_m:g})")
+                   help=f"cell length for the transmissibility multiplier (default: {d.fault_rock.cell_length_m:g})")
     g.add_argument("--matrix-perm", dest="matrix_perm_md", type=float, metavar="MD",
-                   help=f"matrix permeability for the transmissibility multiplier (default: {d.matrix_perm_md:g})")
+                   help=f"matrix permeability for the transmissibility multiplier (default: {d.fault_rock.matrix_perm_md:g})")
     g.add_argument("--faulting-depth", dest="faulting_depth_m", type=float, metavar="M",
                    help="depth at the time of faulting, for the Sperrevik permeability (default: burial depth)")
 
 
 def _clay_quality_options(p: argparse.ArgumentParser, d) -> None:
-    from logprep.endpoints import ZONINGS
-    from logprep.vshale import COMBINATIONS
+    from logprep.clay.endpoints import ZONINGS
+    from logprep.clay.vshale import COMBINATIONS
 
     g = p.add_argument_group("clay volume: zones, neutron-density, GR checks")
     g.add_argument("--zoning", dest="zoning", choices=list(ZONINGS),
                    help="zones for the clean/shale picks: auto = tops if the well has them, else "
-                        f"steps of the GR baseline; bit-size changes always cut (default: {d.zoning})")
+                        f"steps of the GR baseline; bit-size changes always cut (default: {d.clay.zoning})")
     g.add_argument("--zone-min", dest="zone_min_m", type=float, metavar="M",
-                   help=f"shortest zone made from GR baseline steps, metres (default: {d.zone_min_m})")
+                   help=f"shortest zone made from GR baseline steps, metres (default: {d.clay.zone_min_m})")
     g.add_argument("--zone-step", dest="zone_step_api", type=float, metavar="API",
-                   help=f"least GR baseline step between such zones (default: {d.zone_step_api})")
+                   help=f"least GR baseline step between such zones (default: {d.clay.zone_step_api})")
     g.add_argument("--min-contrast", dest="min_contrast", type=float, metavar="FRACTION",
                    help="zone contrast, as a fraction of the well's, below which a zone is "
-                        f"treated as all shale or all sand (default: {d.min_contrast})")
+                        f"treated as all shale or all sand (default: {d.clay.min_contrast})")
     g.add_argument("--vsh-combine", dest="vsh_combine", choices=list(COMBINATIONS),
                    help="join GR and neutron-density Vsh: mean, min, gr (GR only), nd "
-                        f"(neutron-density where usable) (default: {d.vsh_combine})")
+                        f"(neutron-density where usable) (default: {d.clay.vsh_combine})")
     g.add_argument("--washout", dest="washout_in", type=float, metavar="INCHES",
-                   help=f"caliper over bit size that flags a washout (default: {d.washout_in})")
+                   help=f"caliper over bit size that flags a washout (default: {d.clay.washout_in})")
     g.add_argument("--drho-max", dest="drho_max_g_cm3", type=float, metavar="G_CM3",
                    help="density correction |DRHO| above which neutron-density is not used, "
-                        f"g/cm3 (default: {d.drho_max_g_cm3})")
+                        f"g/cm3 (default: {d.clay.drho_max_g_cm3})")
 
 
 def _survey_options(p: argparse.ArgumentParser, d) -> None:
@@ -142,16 +142,16 @@ def _survey_options(p: argparse.ArgumentParser, d) -> None:
                         "curvature), others are taken as vertical")
     g.add_argument("--bed-dip", dest="bed_dip_deg", type=float, metavar="DEG",
                    help="bed dip in degrees for the true stratigraphic thickness tst_m in "
-                        f"layers.csv (default: {d.bed_dip_deg})")
+                        f"layers.csv (default: {d.input.bed_dip_deg})")
 
 
 def _pair_options(p: argparse.ArgumentParser, d) -> None:
-    from logprep.twowell import SLIP_SOURCES
+    from logprep.fault.twowell import SLIP_SOURCES
 
     g = p.add_argument_group("well pairs across a fault")
     g.add_argument("--pair-slip-from", dest="pair_slip_source", choices=list(SLIP_SOURCES),
                    help="for --pairs: take the slipped interval from the footwall well, the "
-                        f"hanging-wall well, or average the two (default: {d.pair_slip_source})")
+                        f"hanging-wall well, or average the two (default: {d.field.pair_slip_source})")
 
 
 SETTINGS_OPTION_GROUPS = [_clay_options, _clay_quality_options, _blocking_options, _fault_options,
@@ -161,7 +161,7 @@ whose default is None (not given); add a function here for a new group."""
 
 
 def _add_screen_options(p: argparse.ArgumentParser) -> None:
-    from logprep.pipeline import ScreenSettings
+    from logprep.run.settings import ScreenSettings
 
     d = ScreenSettings()
     for add_group in SETTINGS_OPTION_GROUPS:
@@ -169,25 +169,22 @@ def _add_screen_options(p: argparse.ArgumentParser) -> None:
 
 
 def _given_settings(args) -> dict:
-    """The :class:`ScreenSettings` fields given on the command line."""
-    from dataclasses import fields
+    """The :class:`ScreenSettings` fields given on the command line (flat names)."""
+    from logprep.run.settings import FIELD_GROUP
 
-    from logprep.pipeline import ScreenSettings
-
-    names = {f.name for f in fields(ScreenSettings)}
-    return {k: v for k, v in vars(args).items() if k in names and v is not None}
+    return {k: v for k, v in vars(args).items() if k in FIELD_GROUP and v is not None}
 
 
 def _config_from_args(args) -> tuple[dict, dict]:
     """Settings and tune ranges from ``--config`` (empty without one)."""
-    from logprep.config import read_config
+    from logprep.run.config import read_config
 
     return read_config(args.config) if getattr(args, "config", None) else ({}, {})
 
 
 def _settings_from_args(args):
     """ScreenSettings from defaults, then ``--config``, then the options given."""
-    from logprep.pipeline import ScreenSettings
+    from logprep.run.settings import ScreenSettings
 
     from_file, _ = _config_from_args(args)
     return ScreenSettings(**{**from_file, **_given_settings(args)})
@@ -212,8 +209,8 @@ def _progress(stream):
 
 
 def cmd_screen(args) -> int:
-    from logprep.batch import screen_paths
-    from logprep.examples import example_logs_dir
+    from logprep.run.batch import screen_paths
+    from logprep.io.examples import example_logs_dir
 
     settings = _settings_from_args(args)
     paths = args.paths
@@ -224,15 +221,15 @@ def cmd_screen(args) -> int:
         paths = [demo]
         given = _given_settings(args)
         extra = {}
-        if "tops_file" not in given and not settings.tops_file:
+        if "tops_file" not in given and not settings.input.tops_file:
             extra["tops_file"] = str(demo / "tops.csv")
-        if "survey_dir" not in given and not settings.survey_dir:
+        if "survey_dir" not in given and not settings.input.survey_dir:
             extra["survey_dir"] = str(demo / "surveys")
         settings = settings.updated(**extra) if extra else settings
         if args.pairs is None:
             args.pairs = str(demo / "pairs.csv")
     if args.pairs:
-        from logprep.pairs import read_pairs
+        from logprep.run.pairs import read_pairs
 
         read_pairs(args.pairs)  # a bad pairs file is a usage error, found before the wells run
     report = screen_paths(
@@ -249,7 +246,7 @@ def cmd_screen(args) -> int:
           f"results in {args.out}, summary {report.summary_path}")
     failed = bool(report.failures)
     if args.pairs:
-        from logprep.pairs import screen_pairs
+        from logprep.run.pairs import screen_pairs
 
         rows = screen_pairs(paths, args.pairs, args.out, settings,
                             on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
@@ -262,10 +259,10 @@ def cmd_screen(args) -> int:
 
 
 def cmd_tune(args) -> int:
-    from logprep.tune import DEFAULT_MIN_BEDS_M, DEFAULT_SAND_CUTOFFS, DEFAULT_SHALE_CUTOFFS
-    from logprep.tune import sweep_file, write_sweep
+    from logprep.run.tune import DEFAULT_MIN_BEDS_M, DEFAULT_SAND_CUTOFFS, DEFAULT_SHALE_CUTOFFS
+    from logprep.run.tune import sweep_file, write_sweep
 
-    from logprep.outputs import prepare_out_dir
+    from logprep.report.writers import prepare_out_dir
 
     settings = _settings_from_args(args)
     _, ranges = _config_from_args(args)

@@ -4,6 +4,9 @@ Each class also inherits the matching built-in, so ``except ValueError`` still w
 callers that do not know logprep.  Messages say where, what, and how to fix it.
 """
 
+import math
+from dataclasses import fields
+
 
 class LogprepError(Exception):
     """Root of every user-facing logprep error."""
@@ -26,3 +29,12 @@ class SettingsError(LogprepError, ValueError):
 
 class OutputError(LogprepError, OSError):
     """Results could not be written."""
+
+
+def require_finite_fields(settings) -> None:
+    """Raise :class:`SettingsError` when a numeric field of the dataclass ``settings`` is
+    NaN or infinite (a settings file or a notebook can pass one)."""
+    for f in fields(settings):
+        value = getattr(settings, f.name)
+        if isinstance(value, (int, float)) and not isinstance(value, bool) and not math.isfinite(value):
+            raise SettingsError(f"setting {f.name} must be a finite number (got {value})")

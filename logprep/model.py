@@ -1,7 +1,7 @@
 """The small frozen data model shared by every stage.
 
 Depths are metres, positive down, measured as in the file (MD unless the file says
-otherwise); feet become metres once, in :mod:`logprep.lasread`.  Arrays stored on these
+otherwise); feet become metres once, in :mod:`logprep.io.las`.  Arrays stored on these
 objects are made read-only so a stage cannot change another stage's input by accident.
 """
 
@@ -9,7 +9,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field
 from types import MappingProxyType
-from typing import Mapping
+from collections.abc import Mapping
 
 import numpy as np
 import pandas as pd

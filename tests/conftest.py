@@ -34,6 +34,6 @@ def data_dir() -> Path:
 
 @pytest.fixture(scope="session")
 def example_dir() -> Path:
-    from logprep.examples import example_logs_dir
+    from logprep.io.examples import example_logs_dir
 
     return example_logs_dir()

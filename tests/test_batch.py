@@ -5,9 +5,9 @@ import shutil
 
 import pandas as pd
 
-from logprep.batch import screen_paths
+from logprep.run.batch import screen_paths
 from logprep.cli import main
-from logprep.pipeline import ScreenSettings
+from logprep.run.settings import ScreenSettings
 
 
 def test_jobs_give_identical_results(tmp_path, example_dir, data_dir):
@@ -55,7 +55,7 @@ def test_demo_run_uses_bundled_tops_survey_and_pair(tmp_path, monkeypatch):
 def test_unreadable_auxiliary_unit_leaves_curve_out_not_the_well():
     # CWLS LAS 1.2 wrapped example (via lasio, MIT): GR present, density unit 'K/M' as read.
     from conftest import open_logs_path
-    from logprep.pipeline import screen_file
+    from logprep.run.pipeline import screen_file
 
     r = screen_file(open_logs_path("las_standard_examples", "1.2", "sample_wrapped.las"))
     assert any(n.startswith("RHOB not used: bulk-density unit 'K/M'") for n in r.notes)

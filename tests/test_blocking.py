@@ -4,7 +4,7 @@ import numpy as np
 import pytest
 from hypothesis import given, settings, strategies as st
 
-from logprep.blocking import block_cutoff, classify_vsh, fill_gaps, sample_edges_m
+from logprep.layers.blocking import block_cutoff, classify_vsh, fill_gaps, sample_edges_m
 from logprep.errors import SettingsError
 
 
@@ -99,7 +99,7 @@ def test_spike_on_the_last_sample_does_not_fail_the_well(tmp_path):
     # A 30 API sand / 120 API shale / 30 API sand log with one 900 API spike on the last
     # sample: QC replaces it, and the well is screened with the last sample's Vsh taken
     # from the sample above (the sand, Vsh 0), marked filled.
-    from logprep.pipeline import screen_file
+    from logprep.run.pipeline import screen_file
 
     z = np.arange(100.0, 130.01, 0.5)
     gr = np.where((z >= 110) & (z < 120), 120.0, 30.0)

@@ -8,12 +8,13 @@ import pytest
 from hypothesis import given, settings, strategies as st
 
 from conftest import open_logs_path
-from logprep.blocking import (
-    BLOCKING_METHODS, block_changepoint, block_cutoff, block_with_boundaries, classify_vsh,
-    net_to_gross, noise_sd, pelt_mean_breaks, sample_edges_m,
+from logprep.layers.blocking import (
+    BLOCKING_METHODS, block_changepoint, block_with_boundaries, classify_vsh,
+    net_to_gross, sample_edges_m,
 )
+from logprep.changepoint import noise_sd, pelt_mean_breaks
 from logprep.errors import SettingsError
-from logprep.vshale import vsh_from_gr
+from logprep.clay.vshale import vsh_from_gr
 
 METHODS = sorted(BLOCKING_METHODS)
 

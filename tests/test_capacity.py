@@ -12,18 +12,18 @@ that equation's published tables, cross-checked here against the library.
 import sys
 
 import numpy as np
-import pandas as pd
 import pytest
 
-from logprep.capacity import (
-    CAPACITY_COLUMNS, CapacityParams, co2_density_kgm3, column_height_m, depth_datum,
-    envelope_c, fault_zone_pressure_bar, leak_point_column_m, leak_point_column_points_m,
-    seal_capacity_table, verdict, window_columns_m, window_throws,
+from logprep.fault.capacity import (
+    CAPACITY_COLUMNS, CapacityParams, seal_capacity_table, verdict, window_columns_m, window_throws,
+)
+from logprep.fault.envelope import (
+    co2_density_kgm3, column_height_m, depth_datum, envelope_c, fault_zone_pressure_bar, leak_point_column_m, leak_point_column_points_m,
 )
 from logprep.errors import SettingsError
-from logprep.juxtaposition import WINDOW_COLUMNS, sand_windows, sgr_layered_pct
+from logprep.fault.juxtaposition import WINDOW_COLUMNS, sand_windows, sgr_layered_pct
 from logprep.model import Layers, WellLog
-from logprep.units import G_MPS2, M_PER_FT, PA_PER_BAR, PA_PER_PSI, pressure
+from logprep.units import G_MPS2, M_PER_FT, PA_PER_PSI, pressure
 
 # METHODS.md s.4, table of FZP (bar) at SGR for the three burial classes (Bretan et al.
 # 2003 envelope [V formula], numbers recomputed there).  Some entries differ from the
@@ -139,7 +139,7 @@ LAYERED = _layers([1000, 1030, 1036, 1060, 1070, 1100, 1110, 1150],
 
 def test_sgr_between_matches_sgr_layered():
     # Same definition (Yielding et al. 1997) by two routes, away from the bed edges.
-    from logprep.capacity import sgr_between_pct
+    from logprep.fault.capacity import sgr_between_pct
 
     z = np.array([1040.0, 1075.5, 1120.0])
     t = np.array([12.0, 40.25, 100.0])
@@ -247,7 +247,7 @@ def test_depth_datum_without_unit_takes_the_depth_unit():
 
 def test_depth_datum_of_the_feet_example_well(example_dir):
     # HRM-3 (invented example) gives EKB in feet; the other wells in metres.
-    from logprep.lasread import read_well
+    from logprep.io.las import read_well
 
     datum, note = depth_datum(read_well(example_dir / "HRM-3.las"))
     assert note.endswith("ft") and 15 < datum < 40
@@ -269,7 +269,7 @@ def test_co2_density_typical_storage_range():
     # IPCC (2005) SRCCS ch. 5 [M]: supercritical CO2 about 500-800 kg/m3 at storage depths;
     # 1.5-3 km on a hydrostatic gradient and 30 C/km from 10 C (common practice, no source).
     pytest.importorskip("CoolProp")
-    from logprep.capacity import geothermal_temperature_k, hydrostatic_pressure_pa
+    from logprep.fault.envelope import geothermal_temperature_k, hydrostatic_pressure_pa
 
     z = np.array([1500.0, 2000.0, 3000.0])
     rho = co2_density_kgm3(hydrostatic_pressure_pa(z, 1050.0), geothermal_temperature_k(z, 10.0, 30.0))

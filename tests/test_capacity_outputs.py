@@ -7,11 +7,13 @@ import shutil
 import pandas as pd
 import pytest
 
-from logprep.capacity import CAPACITY_COLUMNS
+from logprep.fault.capacity import CAPACITY_COLUMNS
 from logprep.cli import main
-from logprep.juxtaposition import WINDOW_COLUMNS
-from logprep.pipeline import ScreenSettings, screen_file
-from logprep.sheet import TABLE_HEAD, build_sheet, window_rows
+from logprep.fault.juxtaposition import WINDOW_COLUMNS
+from logprep.run.pipeline import screen_file
+from logprep.run.settings import ScreenSettings
+from logprep.report.draw import TABLE_HEAD, window_rows
+from logprep.report.sheet import build_sheet
 
 
 @pytest.fixture(scope="module")

@@ -11,12 +11,15 @@ import pandas as pd
 import pytest
 
 from conftest import open_logs_path
-from logprep.endpoints import changepoint_bounds, pick_endpoints, zone_bounds
+from logprep.clay.endpoints import changepoint_bounds, pick_endpoints
 from logprep.errors import SettingsError
-from logprep.lasread import read_well
-from logprep.pipeline import ScreenSettings, clay_volume, screen_file
-from logprep.qc import QC_FLAGS, flag_code, gr_flags, qc_table
-from logprep.vshale import (
+from logprep.io.las import read_well
+from logprep.clay.settings import ClaySettings
+from logprep.clay.stage import clay_volume
+from logprep.run.pipeline import screen_file
+from logprep.run.settings import ScreenSettings
+from logprep.clay.qc import QC_FLAGS, flag_code, gr_flags, qc_table
+from logprep.clay.vshale import (
     COMBINATIONS, density_g_cm3, density_porosity, gas_crossover, neutron_v_v, vsh_neutron_density,
 )
 
@@ -133,8 +136,8 @@ def test_bad_samples_excluded_from_picks():
 def test_density_correction_gate():
     # Common practice, no source (value from memory): |DRHO| above about 0.1 g/cm3 means
     # poor pad contact; the sign does not matter and a missing DRHO is not flagged.
-    from logprep.qc import density_correction_flags
-    from logprep.vshale import density_correction_g_cm3
+    from logprep.clay.qc import density_correction_flags
+    from logprep.clay.vshale import density_correction_g_cm3
 
     d = np.array([0.0, 0.099, -0.101, 0.2, np.nan])
     assert density_correction_flags(d, 0.10).tolist() == [False, False, True, True, False]
@@ -164,7 +167,7 @@ def test_bad_density_keeps_nd_out_but_not_gr_picks():
     units = {"GR": "API", "NPHI": "v/v", "RHOB": "g/cm3", "DRHO": "g/cm3"}
     well = WellLog(name="T", source="t.las", sha256="", depth_m=z, curves=curves, units=units,
                    depth_unit="M", gr_mnemonic="GR")
-    cv = clay_volume(well, ScreenSettings(zoning="none"))
+    cv = clay_volume(well, ClaySettings(zoning="none"))
     bad = cv.qc_flags["bad_density"]
     assert bad.sum() == 600
     np.testing.assert_allclose(cv.vsh[bad], cv.vsh_gr[bad])
@@ -173,7 +176,7 @@ def test_bad_density_keeps_nd_out_but_not_gr_picks():
     no_drho = WellLog(name="T", source="t.las", sha256="", depth_m=z,
                       curves={k: v for k, v in curves.items() if k != "DRHO"}, units=units,
                       depth_unit="M", gr_mnemonic="GR")
-    cv2 = clay_volume(no_drho, ScreenSettings(zoning="none"))
+    cv2 = clay_volume(no_drho, ClaySettings(zoning="none"))
     pd.testing.assert_frame_equal(cv.picks.drop(columns="nd_shale_separation"),
                                   cv2.picks.drop(columns="nd_shale_separation"))
     assert (cv2.vsh[bad] > cv.vsh[bad]).any()
@@ -189,7 +192,7 @@ def test_flag_code_bits_round_trip():
 def test_las_export_round_trip(tmp_path, example_dir):
     import lasio
 
-    from logprep.lasexport import las_bytes
+    from logprep.report.lasexport import las_bytes
 
     r = screen_file(example_dir / "HRM-4.las")
     path = tmp_path / "curves.las"
@@ -235,12 +238,12 @@ FLOORS = {"31_2-1": 0.90, "31_6-5": 0.84, "33_9-1": 0.87}
 
 @pytest.mark.parametrize("stem", list(FLOORS))
 def test_default_vsh_floor_on_labelled_wells(stem):
-    from logprep.validation import balanced_accuracy, baseline_vsh
+    from logprep.clay.scoring import balanced_accuracy, baseline_vsh
 
     well = read_well(open_logs_path("force2020_norway", f"{stem}.las"))
     label = well.curves["FORCE_2020_LITHOFACIES_LITHOLOGY"]
     sand, shale = label == 30000, label == 65000
-    cv = clay_volume(well, ScreenSettings())
+    cv = clay_volume(well, ClaySettings())
     i0 = int(np.searchsorted(well.depth_m, cv.depth_m[0]))
     sl = slice(i0, i0 + cv.depth_m.size)
     got = balanced_accuracy(cv.vsh, sand[sl], shale[sl])

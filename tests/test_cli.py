@@ -14,8 +14,8 @@ import pandas as pd
 import pytest
 
 from logprep.cli import main
-from logprep.juxtaposition import WINDOW_COLUMNS
-from logprep.outputs import SUMMARY_COLUMNS
+from logprep.fault.juxtaposition import WINDOW_COLUMNS
+from logprep.report.writers import SUMMARY_COLUMNS
 
 
 @pytest.fixture(scope="module")
@@ -152,7 +152,8 @@ def test_readme_test_command_is_what_ci_runs():
 
 
 def test_tops_file_matched_to_wells(tmp_path, example_dir):
-    from logprep.pipeline import ScreenSettings, screen_file
+    from logprep.run.pipeline import screen_file
+    from logprep.run.settings import ScreenSettings
 
     s = ScreenSettings(tops_file=str(example_dir / "tops.csv"))
     r = screen_file(example_dir / "HRM-3.las", s)

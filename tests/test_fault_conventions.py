@@ -17,7 +17,7 @@ from logprep.model import Layers
 def test_clay_fraction_of_shale():
     # Worked by hand: Vcl = 0.6 x Vsh; a 20 m shale of Vsh 0.8 and 30 m sand of Vsh 0.1
     # (METHODS.md s.2: SGR 38.0 % on Vsh) give SGR 0.6 x 38.0 = 22.8 % on clay.
-    from logprep.juxtaposition import sgr_layered_pct
+    from logprep.fault.juxtaposition import sgr_layered_pct
 
     L = Layers([0.0, 20.0], [20.0, 50.0], [0.8, 0.1], ["shale", "sand"])
     assert float(sgr_layered_pct(L, 50.0, 50.0)) == pytest.approx(38.0, abs=1e-9)
@@ -59,7 +59,7 @@ def test_one_class_step_is_the_stated_pressure_factor():
     # Bretan et al. (2003) envelope: C 0.5 above 3.0 km burial, 0.25 to 3.5 km, 0 deeper;
     # 3100 m below sea level under 200 m of water is 2900 m below the sea floor: class 1
     # instead of 2, pressure lower by 10^0.25 = 1.778.
-    from logprep.capacity import fault_zone_pressure_bar
+    from logprep.fault.envelope import fault_zone_pressure_bar
 
     ss = fault_zone_pressure_bar(30.0, 3100.0)
     sf = fault_zone_pressure_bar(30.0, float(burial.burial_depth_m(3100.0, -200.0)))
@@ -109,7 +109,7 @@ def test_co2_density_along_the_default_path():
     # 1 km 10.4 MPa, 40 C -> about 655 kg/m3; a fixed 700 kg/m3 overstates the 500 m CO2
     # column (1050 - 143) / (1050 - 700) = 2.6 times.
     pytest.importorskip("CoolProp")
-    from logprep.capacity import co2_density_kgm3, geothermal_temperature_k, hydrostatic_pressure_pa
+    from logprep.fault.envelope import co2_density_kgm3, geothermal_temperature_k, hydrostatic_pressure_pa
 
     z = np.array([500.0, 1000.0])
     rho = co2_density_kgm3(hydrostatic_pressure_pa(z, 1050.0), geothermal_temperature_k(z, 10.0, 30.0))

@@ -12,7 +12,7 @@ import numpy as np
 import pytest
 
 from logprep.errors import SettingsError
-from logprep.faultrock import (
+from logprep.fault.faultrock import (
     fault_rock_thickness_m, manzocchi_permeability_md, sperrevik_permeability_md,
     transmissibility_multiplier, transmissibility_multiplier_cells,
 )
@@ -75,7 +75,7 @@ def test_permeability_outside_the_fitted_range_is_flagged():
     # = 80000 exp(1.68762) = 432,479 mD, and 353 m is shallower than
     # the 1.5-5 km the relation was fitted on (from memory): flagged, as is a fault rock
     # more permeable than its 100 mD matrix.
-    from logprep.faultrock import calibration_note, sperrevik_permeability_md
+    from logprep.fault.faultrock import calibration_note, sperrevik_permeability_md
 
     k = float(sperrevik_permeability_md(0.1, 353.0, 353.0))
     expect = 80000 * np.exp(-(19.4 * 0.1 + 0.00403 * 353 + (0.0055 * 353 - 12.5) * 0.9 ** 7))

@@ -11,7 +11,7 @@ import numpy as np
 import pytest
 from hypothesis import given, settings, strategies as st
 
-from logprep.juxtaposition import (
+from logprep.fault.juxtaposition import (
     WINDOW_COLUMNS, contact_length_m, cumulative_clay, juxtaposition_grid,
     juxtaposition_throw_range, sand_windows, sgr_layered_pct,
 )
@@ -171,7 +171,7 @@ def test_heterolith_reservoir_above_a_net_to_gross():
     # heterolith (Vsh 0.4, net-to-gross 0.6), shale 1020-1030 (0.9), sand 1030-1050 (0.06).
     # The footwall sand faces the stack for throws 10-40 m; lowest SGR at z = 1050 m,
     # t = 30 m: slipped interval [1020, 1050] = (10 x 0.9 + 20 x 0.06) / 30 = 34.0 %.
-    from logprep.juxtaposition import reservoir_mask
+    from logprep.fault.juxtaposition import reservoir_mask
 
     L = Layers([1000.0, 1010.0, 1020.0, 1030.0], [1010.0, 1020.0, 1030.0, 1050.0],
                [0.9, 0.4, 0.9, 0.06], ["shale", "heterolith", "shale", "sand"],

@@ -12,7 +12,7 @@ import pytest
 
 from conftest import open_logs_path
 from logprep.errors import CurveNotFoundError, LasReadError, LogprepError
-from logprep.lasread import FT_TO_M, GR_ALIASES, find_gr_curve, read_well
+from logprep.io.las import FT_TO_M, GR_ALIASES, find_gr_curve, read_well
 
 
 def test_metres_file(data_dir):
@@ -137,7 +137,7 @@ def test_utf16_file_reads_with_named_curve():
 
 
 def test_read_well_name_header_only(data_dir):
-    from logprep.lasread import read_well_name
+    from logprep.io.las import read_well_name
 
     assert read_well_name(data_dir / "layered_metres.las") == read_well(data_dir / "layered_metres.las").name
     assert read_well_name(data_dir / "not_las.las") == ""

@@ -5,8 +5,8 @@ from pathlib import Path
 
 import pytest
 
-from logprep.config import read_config
-from logprep.pipeline import ScreenSettings
+from logprep.run.config import read_config
+from logprep.run.settings import ScreenSettings
 
 NOTEBOOK = Path(__file__).resolve().parents[1] / "notebooks" / "tune_blocking.ipynb"
 

@@ -10,8 +10,9 @@ import pytest
 
 from logprep.cli import main
 from logprep.errors import LogprepError, SettingsError
-from logprep.pipeline import ScreenSettings, screen_file
-from logprep.tops import read_tops
+from logprep.run.pipeline import screen_file
+from logprep.run.settings import ScreenSettings
+from logprep.io.tops import read_tops
 
 
 def write_las(path, depth_m, gr_api, well="FIX-1"):
@@ -41,7 +42,7 @@ def one_line_error(capsys):
 
 def test_no_sand_sand_window_still_gives_a_sheet(tmp_path):
     # all shale with noise: one lithology, so the windows table is empty but typed
-    from logprep.sheet import build_sheet
+    from logprep.report.sheet import build_sheet
 
     z = np.arange(100.0, 130.01, 0.5)
     r = screen_file(write_las(tmp_path / "shale.las", z, 120 + 5 * np.sin(7 * z)))
@@ -52,7 +53,7 @@ def test_no_sand_sand_window_still_gives_a_sheet(tmp_path):
 
 def test_log_shorter_than_one_field_row_still_gives_a_sheet(tmp_path):
     # 10 samples over 9 mm: the SGR field has one row, too few to contour
-    from logprep.sheet import build_sheet
+    from logprep.report.sheet import build_sheet
 
     z = 100 + 0.001 * np.arange(10)
     r = screen_file(write_las(tmp_path / "short.las", z, np.where(np.arange(10) % 2, 30.0, 120.0)))
@@ -107,8 +108,8 @@ def test_empty_tops_csv_says_so(tmp_path):
 
 
 def test_semicolon_survey_and_pairs(tmp_path):
-    from logprep.pairs import read_pairs
-    from logprep.survey import read_survey
+    from logprep.run.pairs import read_pairs
+    from logprep.io.survey import read_survey
 
     s = tmp_path / "W.csv"
     s.write_text("md_m;inc_deg;azi_deg\n0;0;0\n100;2,5;90\n")
@@ -143,7 +144,7 @@ def test_out_that_is_a_file(tmp_path, capsys):
 
 
 def test_well_folder_never_takes_a_run_file_name(tmp_path):
-    from logprep.outputs import folder_name
+    from logprep.report.writers import folder_name
 
     taken: set[str] = set()
     names = [folder_name(p, taken) for p in ("a/logprep-settings.toml.las",

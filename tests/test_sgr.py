@@ -12,12 +12,12 @@ import numpy as np
 import pytest
 from hypothesis import given, settings, strategies as st
 
-from logprep.blocking import block_cutoff, sample_edges_m
-from logprep.juxtaposition import (
+from logprep.layers.blocking import block_cutoff
+from logprep.fault.juxtaposition import (
     JUXTAPOSITION_CLASSES, cumulative_clay, juxtaposition_grid, sgr_layered_pct,
 )
 from logprep.model import Layers
-from logprep.sgr import (
+from logprep.fault.sgr import (
     cumulative_clay_curve, juxtaposition_field, sgr_field, sgr_field_pct, throw_axis_m,
 )
 
@@ -89,7 +89,7 @@ def test_curve_partial_samples_weighted_by_length():
     # ~0.03 x 0.2 / 40 -> 0.015 %, far outside the tolerance.
     depth, vsh = ramp()
     bounds, clay = cumulative_clay_curve(depth, vsh)
-    from logprep.juxtaposition import sgr_from_cumulative_pct
+    from logprep.fault.juxtaposition import sgr_from_cumulative_pct
     got = sgr_from_cumulative_pct(bounds, clay, 60.03, 40.0)
     assert got == pytest.approx(100 * (60.03**2 - 20.03**2) / 200 / 40, abs=1e-4)
 
@@ -218,7 +218,7 @@ def test_field_exact_when_boundaries_are_off_the_nodes():
         f = sgr_field(L, tvd, vsh, throw_max_m=60, throw_step_m=1.0, depth_step_m=0.5, source=source)
         bounds, clay = (cumulative_clay(L) if source == "layers"
                         else cumulative_clay_curve(tvd, vsh))
-        from logprep.juxtaposition import sgr_from_cumulative_pct
+        from logprep.fault.juxtaposition import sgr_from_cumulative_pct
         ref = sgr_from_cumulative_pct(bounds, clay, f.depth_m[:, None], f.throw_m[None, :])
         assert np.array_equal(np.isfinite(f.sgr_pct), np.isfinite(ref))
         # float32 storage of a percentage: 1e-3 % absolute
@@ -234,7 +234,7 @@ def test_field_snaps_large_throws_on_a_fine_log():
     # 46 m of clay, SGR = 100 x 46 / 110 = 41.818 %.  The juxtaposition, counted in whole
     # nodes (node k faces node k - 10 t; a node on a boundary belongs to the bed below),
     # must match cell for cell, including the cells reaching the log top.
-    from logprep.juxtaposition import _PAIR_CODE
+    from logprep.fault.juxtaposition import _PAIR_CODE
     depth = np.arange(2000.0, 2400.0, 0.1)
     tops = np.arange(2000.0, 2400.0, 20.0)
     n = tops.size

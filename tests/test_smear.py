@@ -9,11 +9,10 @@ Franssen (1997), NPF Spec. Publ. 7, 51-59; check values from ../shared/METHODS.m
 import numpy as np
 import pytest
 
-from logprep.juxtaposition import sand_windows
+from logprep.fault.juxtaposition import sand_windows
 from logprep.model import Layers
-from logprep.sgr import sgr_field_pct, throw_axis_m
-from logprep.juxtaposition import cumulative_clay
-from logprep.smear import (
+from logprep.fault.sgr import throw_axis_m
+from logprep.fault.smear import (
     SMEAR_COLUMNS, clay_smear_potential_m, shale_smear_factor, smear_at, smear_fields,
     window_smear,
 )

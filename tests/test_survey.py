@@ -13,7 +13,7 @@ import numpy as np
 import pandas as pd
 import pytest
 
-from logprep.survey import (
+from logprep.io.survey import (
     SurveyError, find_survey, read_survey, station_tvd_m, true_stratigraphic_thickness_m,
     tvd_at_md,
 )
@@ -130,7 +130,7 @@ def test_tst_takes_the_well_direction_against_the_dip():
     # TST = 10 |cos30 cos20 - sin30 sin20 cos(azi - dip_azi)|: drilling down-dip (same
     # azimuth) 10 (0.81380 - 0.17101) = 6.4279 m; up-dip 10 (0.81380 + 0.17101) = 9.8481 m;
     # along strike 8.1380 m (= TVT cos dip, the vertical-well formula).
-    from logprep.survey import straight_hole_tst_m
+    from logprep.io.survey import straight_hole_tst_m
 
     assert straight_hole_tst_m(10.0, 30.0, 90.0, 20.0, 90.0) == pytest.approx(6.4279, abs=1e-4)
     assert straight_hole_tst_m(10.0, 30.0, 270.0, 20.0, 90.0) == pytest.approx(9.8481, abs=1e-4)
@@ -143,7 +143,7 @@ def test_tst_along_a_surveyed_path():
     # A survey held at 30 deg inclination, azimuth 090 from 1000 m MD: the stretch
     # 1100-1110 m MD is straight, so its TST is the hand-worked 6.4279 m down-dip (beds
     # dipping 20 deg towards 090) and 9.8481 m up-dip (towards 270).
-    from logprep.survey import position_at_md, stratigraphic_thickness_along_path_m, tvd_at_md
+    from logprep.io.survey import position_at_md, stratigraphic_thickness_along_path_m, tvd_at_md
 
     md, inc, azi = np.array([0.0, 1000.0, 1050.0, 2000.0]), np.array([0.0, 0.0, 30.0, 30.0]), np.full(4, 90.0)
     down = stratigraphic_thickness_along_path_m(1100.0, 1110.0, md, inc, azi, 20.0, 90.0)
@@ -156,7 +156,7 @@ def test_tst_along_a_surveyed_path():
 
 
 def test_unmatched_surveys_are_named(tmp_path):
-    from logprep.survey import unmatched_survey_warnings, unmatched_surveys
+    from logprep.io.survey import unmatched_survey_warnings, unmatched_surveys
 
     for name in ("HRM-4.csv", "hrm_5.csv", "HRM-44.csv", "notes.txt"):
         (tmp_path / name).write_text("md_m,inc_deg,azi_deg\n0,0,0\n100,1,0\n")

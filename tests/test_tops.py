@@ -4,7 +4,7 @@ nlog_f3_netherlands/tops, CC BY-SA, dGB Earth Sciences and TNO; see PROVENANCE.m
 import pytest
 
 from conftest import open_logs_path
-from logprep.tops import TopsError, read_tops, tops_for_well, well_key
+from logprep.io.tops import TopsError, read_tops, tops_for_well, well_key
 
 
 def test_csv_layout(tmp_path):

@@ -5,11 +5,11 @@ import pandas as pd
 import pytest
 
 from logprep.cli import main
-from logprep.config import ConfigError, read_config, settings_toml, write_settings
+from logprep.run.config import ConfigError, read_config, settings_toml, write_settings
 from logprep.model import Layers
-from logprep.pipeline import ScreenSettings
-from logprep.tune import parse_values, sweep_file, window_verdicts
-from logprep.juxtaposition import sand_windows
+from logprep.run.settings import ScreenSettings
+from logprep.run.tune import parse_values, sweep_file, window_verdicts
+from logprep.fault.juxtaposition import sand_windows
 
 
 def test_settings_round_trip(tmp_path):
@@ -27,7 +27,7 @@ def test_settings_round_trip(tmp_path):
 def test_unknown_key_names_key_and_valid_keys(tmp_path):
     p = tmp_path / "bad.toml"
     p.write_text("sand_cutof = 0.3\n")
-    with pytest.raises(ConfigError, match=r"bad.toml: unknown key 'sand_cutof'; valid keys: transform, .*sand_cutoff"):
+    with pytest.raises(ConfigError, match=r"bad.toml: unknown key 'sand_cutof'; valid keys: the tables \[input\], \[clay\].*sand_cutoff.*did you mean 'sand_cutoff'"):
         read_config(p)
     p.write_text("[tune]\nsand_range = [0.1]\n")
     with pytest.raises(ConfigError, match="unknown key \\[tune\\] 'sand_range'; valid keys: sand_sweep"):
@@ -38,6 +38,45 @@ def test_unknown_key_names_key_and_valid_keys(tmp_path):
     p.write_text("sand_cutoff = \n")
     with pytest.raises(ConfigError, match="not valid TOML"):
         read_config(p)
+
+
+def test_settings_file_has_one_table_per_group_and_flat_files_still_read(tmp_path):
+    s = ScreenSettings(sand_cutoff=0.3, transform="clavier", throw_max_m=120.0)
+    text = settings_toml(s)
+    for table in ("[input]", "[clay]", "[layers]", "[field]", "[capacity]", "[fault_rock]"):
+        assert table in text
+    grouped = tmp_path / "grouped.toml"
+    grouped.write_text(text)
+    flat = tmp_path / "flat.toml"  # a file of the first release: every field at the top level
+    flat.write_text('sand_cutoff = 0.3\ntransform = "clavier"\nthrow_max_m = 120.0\n')
+    assert ScreenSettings(**read_config(grouped)[0]) == ScreenSettings(**read_config(flat)[0]) == s
+
+
+def test_settings_file_key_in_wrong_table_or_unknown_in_table(tmp_path):
+    p = tmp_path / "bad.toml"
+    p.write_text("[clay]\nsand_cutoff = 0.3\n")
+    with pytest.raises(ConfigError, match=r"bad.toml: \[clay\] sand_cutoff belongs in the \[layers\] table"):
+        read_config(p)
+    p.write_text("[layers]\nsand_cutof = 0.3\n")
+    with pytest.raises(ConfigError, match=r"unknown key \[layers\] 'sand_cutof'.*did you mean 'sand_cutoff'"):
+        read_config(p)
+    p.write_text("sand_cutoff = 0.2\n[layers]\nsand_cutoff = 0.3\n")
+    with pytest.raises(ConfigError, match="sand_cutoff is given twice"):
+        read_config(p)
+
+
+def test_settings_groups_validate_and_read_through():
+    from logprep.errors import SettingsError
+    from logprep.layers.settings import LayerSettings
+
+    s = ScreenSettings(layers=LayerSettings(sand_cutoff=0.25), transform="larionov_tertiary")
+    assert s.layers.sand_cutoff == s.sand_cutoff == 0.25
+    assert s.clay.transform == "larionov_tertiary"
+    assert s.updated(min_bed_m=2.0).layers == LayerSettings(sand_cutoff=0.25, min_bed_m=2.0)
+    with pytest.raises(SettingsError, match="unknown setting 'sand_cutof'; did you mean 'sand_cutoff'"):
+        ScreenSettings(sand_cutof=0.3)
+    with pytest.raises(SettingsError, match="--min-bed must be >= 0 m"):
+        LayerSettings(min_bed_m=-1.0)
 
 
 def test_cli_options_override_config_and_effective_settings_are_written(tmp_path, example_dir):

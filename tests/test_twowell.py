@@ -10,9 +10,9 @@ import numpy as np
 import pandas as pd
 import pytest
 
-from logprep.juxtaposition import sand_windows
+from logprep.fault.juxtaposition import sand_windows
 from logprep.model import Layers
-from logprep.twowell import (
+from logprep.fault.twowell import (
     PairError, marker_shift_m, two_well_juxtaposition, two_well_sgr_pct, two_well_windows,
 )
 
@@ -155,7 +155,7 @@ def test_sand_against_its_counterpart_at_realistic_depth(top_m, source):
 
 
 def test_hanging_wall_up_is_refused():
-    from logprep.twowell import check_hanging_wall_down
+    from logprep.fault.twowell import check_hanging_wall_down
 
     check_hanging_wall_down(0.0)  # the same well twice
     check_hanging_wall_down(17.91)

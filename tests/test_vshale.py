@@ -10,7 +10,7 @@ import numpy as np
 import pytest
 
 from logprep.errors import LogprepError, SettingsError
-from logprep.vshale import (
+from logprep.clay.vshale import (
     TRANSFORMS, gamma_ray_index, get_transform, parse_endpoint, resolve_endpoint, vsh_from_gr,
 )
 

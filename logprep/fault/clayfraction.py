@@ -28,7 +28,7 @@ References
 from __future__ import annotations
 
 from dataclasses import replace
-from typing import Callable
+from collections.abc import Callable
 
 import numpy as np
 

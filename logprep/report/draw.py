@@ -1,9 +1,5 @@
-"""The per-well screening sheet: builds matplotlib Figures, never saves or shows them.
-
-Page 1 is assembled from panel functions (``draw_*``), each drawing one axes from a
-:class:`~logprep.pipeline.WellScreening`; later pages come from the functions in
-:data:`EXTRA_PAGES`, each returning a list of Figures.  To add a page, append a function
-there; to change a panel, edit its ``draw_*`` function only.
+"""Drawing helpers shared by every page of the sheet: colours, page size, the SGR field
+panel, the window table and the page footer.  Imports no page module.
 
 Colours come from the colour-blind-safe palette of Okabe & Ito (2008, "Color Universal
 Design"), with neutral greys for shale.  The layout is logprep's own.
@@ -11,16 +7,13 @@ Design"), with neutral greys for shale.  The layout is logprep's own.
 
 from __future__ import annotations
 
-from typing import Callable
-
 import matplotlib
 import numpy as np
 from matplotlib.collections import PolyCollection
-from matplotlib.figure import Figure
-from matplotlib.patches import Patch
 
 from logprep import __version__
-from logprep.caution import CAUTION
+from logprep.fault.sgr import contact_polygon
+from logprep.report.caution import CAUTION
 
 LITHOLOGY_COLOURS = {"sand": "#F0E442", "heterolith": "#E69F00", "shale": "#8C8C8C"}
 SGR_CONTOURS_PCT = (10, 20, 30, 40, 60)
@@ -30,7 +23,6 @@ ROWS_PER_PAGE = 45
 INK = "#222222"
 
 
-# ----------------------------------------------------------------------------- panels
 QC_COLOURS = {
     "missing": "#999999", "null_gap": "#555555", "clipped": "#D55E00", "negative": "#CC79A7",
     "implausible": "#CC79A7", "spike": "#CC79A7", "washout": "#0072B2", "gas_crossover": "#009E73",
@@ -39,80 +31,13 @@ QC_COLOURS = {
 """Marker colour of each QC flag on the sheet (Okabe & Ito 2008 palette and greys)."""
 
 
-def draw_gr_track(ax, result) -> None:
-    """GR with the clean and shale lines of each zone, zone boundaries, and QC flags as
-    coloured ticks along the right edge."""
-    ax.plot(result.gr_api, result.depth_m, color=INK, lw=0.6)
-    if result.gr_clean_line is not None:
-        ax.plot(result.gr_clean_line, result.depth_m, color="#0072B2", ls="--", lw=1,
-                label="clean line per zone")
-        ax.plot(result.gr_shale_line, result.depth_m, color="#D55E00", ls="--", lw=1,
-                label="shale line per zone")
-        for top in result.picks["top_m"].iloc[1:]:
-            ax.axhline(top, color="#999999", lw=0.6, ls=":")
-    else:
-        ax.axvline(result.gr_clean_api, color="#0072B2", ls="--", lw=1,
-                   label=f"clean {result.gr_clean_api:.0f}")
-        ax.axvline(result.gr_shale_api, color="#D55E00", ls="--", lw=1,
-                   label=f"shale {result.gr_shale_api:.0f}")
-    trans = ax.get_yaxis_transform()
-    for name, mask in result.qc_flags.items():
-        if np.any(mask):
-            ax.scatter(np.full(int(mask.sum()), 0.97), result.depth_m[mask], s=6, marker="_",
-                       color=QC_COLOURS.get(name, INK), transform=trans,
-                       label=f"QC: {name.replace('_', ' ')}")
-    ax.set_xlabel(f"GR ({result.well.gr_mnemonic}), API; {len(result.picks)} zone(s)")
-    ax.set_ylabel(f"Depth (m, {getattr(result, 'depth_reference', 'as logged')})")
-    ax.legend(loc="lower left", fontsize=6, framealpha=0.9)
-    L = result.layers
-    ax.set_ylim(L.base_m[-1], L.top_m[0])
-
-
-def draw_vsh_track(ax, result) -> None:
-    """Vsh per sample, the blocked Vsh, the cut-offs, and interpolated stretches."""
-    L, s = result.layers, result.settings
-    if result.vsh_nd is not None and np.any(np.isfinite(result.vsh_nd)):
-        ax.plot(result.vsh_nd, result.depth_m, color="#009E73", lw=0.4, alpha=0.7,
-                label="Vsh neutron-density")
-    ax.plot(result.vsh, result.depth_m, color="#777777", lw=0.5, label=f"Vsh ({s.vsh_combine})")
-    z = np.column_stack([L.top_m, L.base_m]).ravel()
-    ax.plot(np.repeat(L.vsh, 2), z, color="#0072B2", lw=1.2, label="blocked")
-    for cut in (s.sand_cutoff, s.shale_cutoff):
-        ax.axvline(cut, color="#999999", lw=0.8, ls=":")
-    if result.filled.any():
-        ax.plot(np.where(result.filled, result.vsh, np.nan), result.depth_m, color="#CC79A7",
-                lw=2.5, label="interpolated")
-    ax.set_xlim(0, 1)
-    ax.set_xlabel(f"Vsh ({s.transform})")
-    ax.legend(loc="lower left", fontsize=6.5, framealpha=0.9)
-    ax.tick_params(labelleft=False)
-
-
-def draw_layer_track(ax, result) -> None:
-    """The blocked column coloured by lithology; samples with any QC flag are marked
-    by a dark tick in the right third of the column."""
-    L = result.layers
-    for top, base, lith in zip(L.top_m, L.base_m, L.lithology):
-        ax.axhspan(top, base, color=LITHOLOGY_COLOURS[lith], lw=0)
-    if result.qc_flags:
-        bad = np.zeros(result.depth_m.size, dtype=bool)
-        for mask in result.qc_flags.values():
-            bad |= mask
-        if bad.any():
-            ax.scatter(np.full(int(bad.sum()), 0.85), result.depth_m[bad], s=8, marker="_",
-                       color=INK, transform=ax.get_yaxis_transform())
-    ax.set_xticks([])
-    ax.set_xlabel("Layers")
-    ax.tick_params(labelleft=False)
-
-
 SGR_CMAP = "cividis"  # perceptually uniform and colour-blind safe
 NO_DATA = "#F2F2F2"
 WINDOW_INK = "#D55E00"  # Okabe & Ito vermillion: sand-sand window outlines
 MAX_DRAWN_ROWS = 700
 CLASS_HATCHES = {1: "////", 2: "...."}
 """Juxtaposition classes hatched on the triangle diagram (codes of
-:data:`logprep.juxtaposition.JUXTAPOSITION_CLASSES`): sand/sand and sand/heterolith."""
+:data:`logprep.fault.juxtaposition.JUXTAPOSITION_CLASSES`): sand/sand and sand/heterolith."""
 
 
 def sgr_levels(threshold_pct: float) -> list[float]:
@@ -143,13 +68,12 @@ def field_ylim(depth, dz: float) -> tuple[float, float]:
 
 def draw_field(ax, grid, *, threshold_pct: float, throw_max_m: float, windows=None,
                labelled=(), hw_shift_m: float = 0.0):
-    """Triangle diagram from an :class:`~logprep.sgr.SgrField`: SGR as colour, contours at
+    """Triangle diagram from an :class:`~logprep.fault.sgr.SgrField`: SGR as colour, contours at
     the screening threshold (bold) and fixed levels, the juxtaposition classes of
     :data:`CLASS_HATCHES` hatched, and the sand-sand windows of ``windows``
     outlined (the rows in ``labelled``, numbered from 1, thicker and numbered).
     ``hw_shift_m`` converts a window's hanging-wall depths into the footwall frame.
     Returns the SGR image (for a colour bar)."""
-    from logprep.sgr import contact_polygon
 
     step = max(1, int(np.ceil(grid.depth_m.size / MAX_DRAWN_ROWS)))
     depth, throw = grid.depth_m[::step], grid.throw_m
@@ -203,59 +127,6 @@ def draw_sgr_colourbar(ax, im, label="SGR (%)"):
     cb.ax.xaxis.set_ticks_position("top")
     cb.set_label(label, fontsize=6.5, labelpad=1)
     cb.ax.xaxis.set_label_position("top")
-
-
-def draw_triangle(ax, result, labelled=()) -> None:
-    """Triangle diagram: footwall depth against throw, the SGR field coloured, contours at
-    the screening threshold and fixed levels, juxtaposition classes, and the sand-sand
-    windows outlined (``labelled`` row numbers from 1 numbered)."""
-    s = result.settings
-    im = draw_field(ax, result.grid, threshold_pct=s.sgr_threshold_pct, throw_max_m=s.throw_max_m,
-                    windows=result.windows, labelled=labelled)
-    draw_sgr_colourbar(ax, im)
-    ax.set_xlabel("Throw (m); normal fault, hanging wall down")
-    ax.set_title(f"Triangle diagram: SGR from {result.grid.source}, sand-sand windows outlined",
-                 fontsize=9, loc="left", pad=14)
-    ax.tick_params(labelleft=False)
-
-
-def draw_legend(ax, result) -> None:
-    """Class and lithology keys and a one-paragraph summary of the well."""
-    ax.set_axis_off()
-    from matplotlib.lines import Line2D
-
-    th = result.settings.sgr_threshold_pct
-    handles = [
-        Patch(facecolor="#7F7F7F", edgecolor="#FFFFFF", hatch="////", label="sand/sand juxtaposition"),
-        Patch(facecolor="#7F7F7F", edgecolor="#FFFFFF", hatch="....", label="sand/heterolith juxtaposition"),
-        Line2D([], [], color=INK, lw=1.6, label=f"SGR {th:g} % (screening threshold)"),
-        Line2D([], [], color=INK, lw=0.6, label="SGR contours (%)"),
-        Patch(facecolor="none", edgecolor=WINDOW_INK, label="sand-sand window (numbered: in table)"),
-        Patch(facecolor=NO_DATA, edgecolor="#666666", label="slipped interval leaves the log"),
-    ]
-    handles += [Patch(facecolor=c, edgecolor="#666666", label=f"layer: {n}")
-                for n, c in LITHOLOGY_COLOURS.items()]
-    ax.legend(handles=handles, loc="upper left", ncol=2, fontsize=8, frameon=False,
-              title="Triangle diagram and layers", title_fontsize=9)
-    L = result.layers
-    sand = np.array(L.lithology) == "sand"
-    cross = result.windows[~result.windows["self_juxtaposed"]]
-    low = cross[cross["sgr_min_pct"] < result.settings.sgr_threshold_pct]
-    lines = [
-        f"{len(L)} layers, {int(sand.sum())} sands, net-to-gross "
-        f"{L.thickness_m[sand].sum() / L.thickness_m.sum():.2f}",
-        f"{len(cross)} windows between different sands within throws 0-"
-        f"{result.settings.throw_max_m:g} m",
-        f"{len(low)} reach SGR below {result.settings.sgr_threshold_pct:g} %; "
-        f"lowest window SGR {result.min_window_sgr_pct:.1f} %",
-    ]
-    if "verdict" in cross:
-        counts = cross["verdict"].value_counts()
-        lines.append("verdicts: " + ", ".join(f"{counts.get(v, 0)} {v}" for v in ("leak", "uncertain", "seal"))
-                     + f" (leak below SGR {result.settings.sgr_leak_pct:g} %, seal from "
-                     f"{result.settings.sgr_threshold_pct:g} %)")
-        lines.append("column heights against throw: page 2")
-    ax.text(0, 0.0, "\n".join(lines), fontsize=8.5, va="bottom")
 
 
 TABLE_HEAD = ["#", "footwall\nsand (m)", "hanging-wall\nsand (m)",
@@ -353,14 +224,14 @@ def draw_footer(fig, result) -> None:
     prov = (
         f"Source: {w.source}   sha256 {w.sha256[:16]}...   WELL '{w.name}'   depth unit as read: "
         f"{w.depth_unit}   GR curve: {w.gr_mnemonic}   logprep {__version__}\n"
-        f"Settings: transform {s.transform}; GR clean {s.gr_clean}, shale {s.gr_shale} per zone "
-        f"({len(result.picks)} zone(s), {s.zoning}; whole well {result.gr_clean_api:.1f}-"
-        f"{result.gr_shale_api:.1f} API; picks.csv); Vsh {s.vsh_combine} of GR and neutron-density; "
-        f"QC flags in qc.csv;\n          cut-offs sand <= {s.sand_cutoff:g}, "
-        f"shale >= {s.shale_cutoff:g}; min bed {s.min_bed_m:g} m; blocking {s.blocking}"
-        f"{f' (penalty {s.changepoint_penalty:g})' if s.blocking == 'changepoint' else ''}"
-        f"{', tied to tops' if s.honour_tops else ''}; "
-        f"throws 0-{s.throw_max_m:g} m; SGR threshold {s.sgr_threshold_pct:g} %."
+        f"Settings: transform {s.clay.transform}; GR clean {s.clay.gr_clean}, shale {s.clay.gr_shale} per zone "
+        f"({len(result.picks)} zone(s), {s.clay.zoning}; whole well {result.gr_clean_api:.1f}-"
+        f"{result.gr_shale_api:.1f} API; picks.csv); Vsh {s.clay.vsh_combine} of GR and neutron-density; "
+        f"QC flags in qc.csv;\n          cut-offs sand <= {s.layers.sand_cutoff:g}, "
+        f"shale >= {s.layers.shale_cutoff:g}; min bed {s.layers.min_bed_m:g} m; blocking {s.layers.blocking}"
+        f"{f' (penalty {s.layers.changepoint_penalty:g})' if s.layers.blocking == 'changepoint' else ''}"
+        f"{', tied to tops' if s.layers.honour_tops else ''}; "
+        f"throws 0-{s.field.throw_max_m:g} m; SGR threshold {s.capacity.sgr_threshold_pct:g} %."
     )
     if result.notes:
         prov += "\nNotes: " + "; ".join(result.notes)
@@ -369,88 +240,11 @@ def draw_footer(fig, result) -> None:
              color="#7A1F00", bbox=dict(facecolor="#FFF4E5", edgecolor="#D55E00", pad=4))
 
 
-# ----------------------------------------------------------------------------- pages
+
+# ----------------------------------------------------------------------------- window choice
 def riskiest_windows(result, n: int) -> list[int]:
     """Row numbers (from 1) of up to ``n`` windows between different sands, lowest
     minimum SGR first."""
     w = result.windows
     cross = w[~w["self_juxtaposed"]].sort_values("sgr_min_pct", kind="stable")
     return [int(i) + 1 for i in cross.index[:n]]
-
-
-def overview_page(result) -> Figure:
-    fig = Figure(figsize=PAGE_SIZE_IN)
-    fig.suptitle(f"Fault-seal screening: {result.well.name}", x=0.015, ha="left", fontsize=15,
-                 fontweight="bold")
-    gs = fig.add_gridspec(1, 5, left=0.045, right=0.985, top=0.92, bottom=0.17,
-                          width_ratios=[1.0, 1.0, 0.45, 4.2, 3.6], wspace=0.08)
-    ax_gr = fig.add_subplot(gs[0])
-    ax_vsh = fig.add_subplot(gs[1], sharey=ax_gr)
-    ax_lith = fig.add_subplot(gs[2], sharey=ax_gr)
-    ax_tri = fig.add_subplot(gs[3], sharey=ax_gr)
-    right = gs[4].subgridspec(2, 1, height_ratios=[1.0, 2.7], hspace=0.12)
-    numbers = riskiest_windows(result, ROWS_PAGE1)
-    draw_gr_track(ax_gr, result)
-    draw_vsh_track(ax_vsh, result)
-    draw_layer_track(ax_lith, result)
-    draw_triangle(ax_tri, result, labelled=numbers)
-    draw_legend(fig.add_subplot(right[0]), result)
-    n_cross = int((~result.windows["self_juxtaposed"]).sum())
-    title = "Sand-sand windows, lowest SGR first"
-    if n_cross > len(numbers):
-        title += f" ({len(numbers)} of {n_cross}; all overleaf)"
-    draw_window_table(fig.add_subplot(right[1]),
-                      window_rows(result.windows, numbers, result.settings.sgr_threshold_pct,
-                                  result.settings.length_unit),
-                      title)
-    draw_footer(fig, result)
-    return fig
-
-
-def window_table_pages(result) -> list[Figure]:
-    """Every row of ``juxtapositions.csv``, in file order, when page 1 could not show all."""
-    w = result.windows
-    n_cross = int((~w["self_juxtaposed"]).sum())
-    if n_cross <= ROWS_PAGE1 and len(w) == n_cross:
-        return []
-    numbers = list(range(1, len(w) + 1))
-    pages = []
-    for start in range(0, len(numbers), ROWS_PER_PAGE):
-        page = Figure(figsize=PAGE_SIZE_IN)
-        page.suptitle(f"{result.well.name}: all sand-sand windows (rows of juxtapositions.csv)",
-                      x=0.015, ha="left", fontsize=13, fontweight="bold")
-        ax = page.add_axes([0.03, 0.15, 0.6, 0.78])
-        chunk = numbers[start:start + ROWS_PER_PAGE]
-        draw_window_table(ax, window_rows(w, chunk, result.settings.sgr_threshold_pct,
-                                          result.settings.length_unit),
-                          f"rows {chunk[0]}-{chunk[-1]} of {len(w)}")
-        draw_footer(page, result)
-        pages.append(page)
-    return pages
-
-
-def capacity_pages(result) -> list[Figure]:
-    """The seal-capacity page (drawn by :mod:`logprep.sheet_capacity`)."""
-    from logprep.sheet_capacity import seal_capacity_page
-
-    return [seal_capacity_page(result)]
-
-
-def smear_pages(result) -> list[Figure]:
-    """The shale-smear page (drawn by :mod:`logprep.sheet_smear`)."""
-    from logprep.sheet_smear import smear_page
-
-    return smear_page(result)
-
-
-EXTRA_PAGES: list[Callable[[object], list[Figure]]] = [capacity_pages, smear_pages,
-                                                       window_table_pages]
-"""Functions ``result -> list of Figures`` appended after page 1, in order."""
-
-
-def build_sheet(result) -> list[Figure]:
-    """The screening sheet for one :class:`~logprep.pipeline.WellScreening`."""
-    pages = [overview_page(result)]
-    for make in EXTRA_PAGES:
-        pages += make(result)
-    return pages

@@ -9,10 +9,9 @@ import textwrap
 import numpy as np
 from matplotlib.figure import Figure
 
-from logprep.capacity import (
-    envelope_c, fault_zone_pressure_bar, column_height_m, window_columns_m, window_throws,
-)
-from logprep.sheet import INK, PAGE_SIZE_IN, draw_footer, riskiest_windows
+from logprep.fault.capacity import window_columns_m, window_throws
+from logprep.fault.envelope import envelope_c, fault_zone_pressure_bar, column_height_m
+from logprep.report.draw import PAGE_SIZE_IN, draw_footer, riskiest_windows
 from logprep.units import M_PER_FT
 
 N_CURVES = 8
@@ -34,8 +33,8 @@ CAPACITY_CAUTION = (
 def _fluid_contrasts(result):
     s = result.settings
     return {
-        "oil": s.brine_density_kgm3 - s.oil_density_kgm3,
-        "gas": s.brine_density_kgm3 - s.gas_density_kgm3,
+        "oil": s.capacity.brine_density_kgm3 - s.capacity.oil_density_kgm3,
+        "gas": s.capacity.brine_density_kgm3 - s.capacity.gas_density_kgm3,
         "co2": None,  # per window: fixed or from the equation of state
     }
 
@@ -45,32 +44,32 @@ def draw_column_panel(ax, result, fluid: str, numbers) -> None:
     fluid, with the heights equivalent to the two verdict thresholds as lines (for the
     weakest burial class among the windows drawn, i.e. the largest C)."""
     s, w_all = result.settings, result.windows
-    per = 1.0 if s.length_unit == "m" else 1.0 / M_PER_FT
+    per = 1.0 if s.capacity.length_unit == "m" else 1.0 / M_PER_FT
     drho_fixed = _fluid_contrasts(result)[fluid]
     weakest_c = None
     for i, k in enumerate(numbers):
         w = w_all.iloc[k - 1]
-        c = float(envelope_c(w.burial_depth_m, s.envelope_class_bounds_m, s.envelope_class_c))
+        c = float(envelope_c(w.burial_depth_m, s.capacity.envelope_class_bounds_m, s.capacity.envelope_class_c))
         weakest_c = c if weakest_c is None else max(weakest_c, c)
-        drho = drho_fixed if drho_fixed is not None else s.brine_density_kgm3 - w.co2_density_kgm3
+        drho = drho_fixed if drho_fixed is not None else s.capacity.brine_density_kgm3 - w.co2_density_kgm3
         t = window_throws(w)
-        h = window_columns_m(result.layers, w, c, [drho], t, s.envelope_sgr_scale_pct)[0] * per
+        h = window_columns_m(result.layers, w, c, [drho], t, s.capacity.envelope_sgr_scale_pct)[0] * per
         ax.plot(t, h, color=CURVE_COLOURS[i % len(CURVE_COLOURS)],
                 ls=LINESTYLES[(i // len(CURVE_COLOURS)) % len(LINESTYLES)], lw=1.4,
                 label=f"#{k} ({w.verdict})")
     if weakest_c is not None:
-        drho = drho_fixed if drho_fixed is not None else s.brine_density_kgm3 - float(
+        drho = drho_fixed if drho_fixed is not None else s.capacity.brine_density_kgm3 - float(
             np.nanmedian(w_all.iloc[[k - 1 for k in numbers]]["co2_density_kgm3"]))
-        for sgr, style, word in ((s.sgr_leak_pct, ":", "leak below"), (s.sgr_threshold_pct, "--", "seal from")):
-            p = fault_zone_pressure_bar(sgr, 0.0, sgr_scale_pct=s.envelope_sgr_scale_pct,
+        for sgr, style, word in ((s.capacity.sgr_leak_pct, ":", "leak below"), (s.capacity.sgr_threshold_pct, "--", "seal from")):
+            p = fault_zone_pressure_bar(sgr, 0.0, sgr_scale_pct=s.capacity.envelope_sgr_scale_pct,
                                         class_bounds_m=(0.0,), class_c=(weakest_c, weakest_c))
             h = float(column_height_m(p, drho, 0.0)) * per
             ax.axhline(h, color="#555555", ls=style, lw=1)
             ax.text(0.99, h, f"SGR {sgr:g} % ({word}), C {weakest_c:g}", fontsize=6.5,
                     ha="right", va="bottom", color="#555555", transform=ax.get_yaxis_transform())
     ax.set_yscale("log")
-    tmax = max(float(w_all.iloc[k - 1].throw_max_m) for k in numbers) if numbers else s.throw_max_m
-    ax.set_xlim(0, min(s.throw_max_m, 1.05 * tmax))
+    tmax = max(float(w_all.iloc[k - 1].throw_max_m) for k in numbers) if numbers else s.field.throw_max_m
+    ax.set_xlim(0, min(s.field.throw_max_m, 1.05 * tmax))
     ax.set_xlabel("Throw (m)")
     ax.set_title(f"{fluid.upper() if fluid == 'co2' else fluid.capitalize()}", loc="left", fontsize=10)
     ax.grid(True, which="both", color="#E5E5E5", lw=0.5)
@@ -79,23 +78,23 @@ def draw_column_panel(ax, result, fluid: str, numbers) -> None:
 
 def _density_note(result) -> str:
     s = result.settings
-    co2 = (f"CO2 {s.co2_density_kgm3:g}" if s.co2_density_mode == "fixed" else
+    co2 = (f"CO2 {s.capacity.co2_density_kgm3:g}" if s.capacity.co2_density_mode == "fixed" else
            f"CO2 from Span & Wagner (1996) via CoolProp at each contact (hydrostatic, "
-           f"{s.surface_temp_c:g} C + {s.geothermal_gradient_c_per_km:g} C/km)")
-    return (f"Densities (kg/m3): brine {s.brine_density_kgm3:g}, oil {s.oil_density_kgm3:g}, "
-            f"gas {s.gas_density_kgm3:g}, {co2}. Envelope FZP (bar) = 10^(SGR/{s.envelope_sgr_scale_pct:g} - C), "
-            f"C {', '.join(f'{c:g}' for c in s.envelope_class_c)} for burial classes split at "
-            f"{', '.join(f'{b:g}' for b in s.envelope_class_bounds_m)} m.")
+           f"{s.capacity.surface_temp_c:g} C + {s.capacity.geothermal_gradient_c_per_km:g} C/km)")
+    return (f"Densities (kg/m3): brine {s.capacity.brine_density_kgm3:g}, oil {s.capacity.oil_density_kgm3:g}, "
+            f"gas {s.capacity.gas_density_kgm3:g}, {co2}. Envelope FZP (bar) = 10^(SGR/{s.capacity.envelope_sgr_scale_pct:g} - C), "
+            f"C {', '.join(f'{c:g}' for c in s.capacity.envelope_class_c)} for burial classes split at "
+            f"{', '.join(f'{b:g}' for b in s.capacity.envelope_class_bounds_m)} m.")
 
 
-def seal_capacity_page(result) -> Figure:
+def seal_capacity_page(result) -> list[Figure]:
     """Page 2: column heights against throw for the riskiest windows (numbers as on page 1)."""
     s = result.settings
     fig = Figure(figsize=PAGE_SIZE_IN)
     fig.suptitle(f"{result.well.name}: seal capacity of the sand-sand windows", x=0.015, ha="left",
                  fontsize=14, fontweight="bold")
     numbers = riskiest_windows(result, N_CURVES)
-    unit = s.length_unit
+    unit = s.capacity.length_unit
     fig.text(0.015, 0.915,
              f"Leak-point column height ({unit}) above the free-water level that the fault rock can hold, "
              f"against throw, for the {len(numbers)} windows with the lowest SGR (numbers as on page 1). "
@@ -114,4 +113,4 @@ def seal_capacity_page(result) -> Figure:
     fig.text(0.015, 0.26, textwrap.fill("CAUTION (seal capacity): " + CAPACITY_CAUTION, 190),
              fontsize=9, va="top", color="#7A1F00", linespacing=1.5)
     draw_footer(fig, result)
-    return fig
+    return [fig]

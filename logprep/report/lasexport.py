@@ -3,7 +3,7 @@
 Curves: DEPT (m), GR as read, the clean and shale lines, Vsh from GR, from
 neutron-density and the chosen Vsh, the lithology code of the blocked layer at each sample
 (0 sand, 1 heterolith, 2 shale; see :data:`logprep.model.LITHOLOGIES`) and the QC flags
-packed as bits (:data:`logprep.qc.QC_FLAGS`).  Missing values are -999.25.
+packed as bits (:data:`logprep.clay.qc.QC_FLAGS`).  Missing values are -999.25.
 """
 
 from __future__ import annotations
@@ -15,7 +15,7 @@ import numpy as np
 
 from logprep import __version__
 from logprep.model import LITHOLOGIES
-from logprep.qc import QC_FLAGS, flag_code
+from logprep.clay.qc import QC_FLAGS, flag_code
 
 NULL = -999.25
 
@@ -38,10 +38,10 @@ def export_curves(result) -> dict[str, tuple[np.ndarray, str, str]]:
         "GR_SHALE": (result.gr_shale_line if result.gr_shale_line is not None else nan, "gAPI",
                      "Shale GR line of the zone"),
         "VSH_GR": (result.vsh_gr if result.vsh_gr is not None else nan, "v/v",
-                   f"Clay volume from GR ({result.settings.transform})"),
+                   f"Clay volume from GR ({result.settings.clay.transform})"),
         "VSH_ND": (result.vsh_nd if result.vsh_nd is not None else nan, "v/v",
                    "Clay volume from neutron-density separation"),
-        "VSH": (result.vsh, "v/v", f"Chosen clay volume ({result.settings.vsh_combine})"),
+        "VSH": (result.vsh, "v/v", f"Chosen clay volume ({result.settings.clay.vsh_combine})"),
         "LITH": (sample_lithology_code(result.depth_m, result.layers), "",
                  "Blocked lithology: " + ", ".join(f"{i} {x}" for i, x in enumerate(LITHOLOGIES))),
         "QC": (flag_code(result.qc_flags).astype(float) if result.qc_flags else np.zeros(n), "",
@@ -50,7 +50,7 @@ def export_curves(result) -> dict[str, tuple[np.ndarray, str, str]]:
 
 
 def las_bytes(result) -> bytes:
-    """The LAS 2.0 file of one :class:`~logprep.pipeline.WellScreening`, as bytes."""
+    """The LAS 2.0 file of one :class:`~logprep.run.pipeline.WellScreening`, as bytes."""
     las = lasio.LASFile()
     las.well["WELL"].value = result.well.name
     las.well["NULL"].value = NULL

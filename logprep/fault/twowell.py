@@ -28,13 +28,13 @@ import numpy as np
 import pandas as pd
 
 from logprep.errors import LogprepError
-from logprep.juxtaposition import (
+from logprep.fault.juxtaposition import (
     _PAIR_CODE, WINDOW_COLUMNS, cumulative_clay, juxtaposition_throw_range, layer_index, max_contact_m,
     reservoir_mask,
     sgr_from_cumulative_pct,
 )
 from logprep.model import Layers
-from logprep.sgr import SgrField, throw_axis_m
+from logprep.fault.sgr import SgrField, throw_axis_m
 
 SLIP_SOURCES = {
     "footwall": "slipped interval [z - t, z] from the footwall well",

@@ -16,10 +16,10 @@ from matplotlib.backends.backend_agg import FigureCanvasAgg
 from matplotlib.backends.backend_pdf import PdfPages
 
 from logprep.errors import OutputError
-from logprep.juxtaposition import WINDOW_COLUMNS
-from logprep.survey import true_stratigraphic_thickness_m
-from logprep.lasexport import las_bytes
-from logprep.qc import any_flag, layer_fraction, qc_table
+from logprep.fault.juxtaposition import WINDOW_COLUMNS
+from logprep.io.survey import true_stratigraphic_thickness_m
+from logprep.report.lasexport import las_bytes
+from logprep.clay.qc import any_flag, layer_fraction, qc_table
 
 SUMMARY_COLUMNS = ["well", "source", "status", "message", "layers", "sand_sand_windows",
                    "min_window_sgr_pct", "folder"]
@@ -112,7 +112,7 @@ def well_tables(result) -> dict[str, pd.DataFrame]:
     windows = result.windows.copy()
     extra = [c for c in windows.columns if c not in WINDOW_COLUMNS]
     layers = result.layers.to_frame()
-    layers["tst_m"] = true_stratigraphic_thickness_m(layers["thickness_m"], result.settings.bed_dip_deg)
+    layers["tst_m"] = true_stratigraphic_thickness_m(layers["thickness_m"], result.settings.input.bed_dip_deg)
     if result.qc_flags:
         layers["qc_flagged_fraction"] = layer_fraction(
             result.depth_m, any_flag(result.qc_flags), result.layers.top_m, result.layers.base_m)

@@ -10,7 +10,7 @@ from __future__ import annotations
 
 import numpy as np
 
-from logprep.vshale import gamma_ray_index
+from logprep.clay.vshale import gamma_ray_index
 
 SAND_CALL_BELOW = 0.5
 

@@ -11,16 +11,16 @@ folder with ``juxtapositions.csv``, ``sgr_field.npz``, ``sheet.pdf`` and ``sheet
 from __future__ import annotations
 
 from pathlib import Path
-from typing import Callable, Iterable
+from collections.abc import Callable, Iterable
 
 import numpy as np
 import pandas as pd
 
-from logprep.csvtable import parse_number, read_csv_table
+from logprep.io.csvtable import parse_number, read_csv_table
 from logprep.errors import LogprepError
-from logprep.outputs import csv_bytes, folder_name, pdf_bytes, png_bytes, write_bytes_atomic
-from logprep.tops import well_key
-from logprep.twowell import (
+from logprep.report.writers import csv_bytes, folder_name, pdf_bytes, png_bytes, write_bytes_atomic
+from logprep.io.tops import well_key
+from logprep.fault.twowell import (
     PairError, check_hanging_wall_down, marker_shift_m, two_well_field, two_well_windows,
 )
 
@@ -68,8 +68,8 @@ def pair_sheet(fw, hw, shift_m: float, windows: pd.DataFrame, grid, settings, ti
     from matplotlib.figure import Figure
     from matplotlib.patches import Patch
 
-    from logprep.caution import CAUTION
-    from logprep.sheet import (LITHOLOGY_COLOURS, PAGE_SIZE_IN, draw_field, draw_sgr_colourbar)
+    from logprep.report.caution import CAUTION
+    from logprep.report.draw import (LITHOLOGY_COLOURS, PAGE_SIZE_IN, draw_field, draw_sgr_colourbar)
 
     fig = Figure(figsize=PAGE_SIZE_IN)
     fig.suptitle(title, x=0.015, ha="left", fontsize=14, fontweight="bold")
@@ -87,8 +87,8 @@ def pair_sheet(fw, hw, shift_m: float, windows: pd.DataFrame, grid, settings, ti
     ax_h.tick_params(labelleft=False)
     ax_f.set_ylabel(f"Footwall depth (m, {fw.depth_reference})")
     windows = windows.assign(self_juxtaposed=False)
-    im = draw_field(ax_t, grid, threshold_pct=settings.sgr_threshold_pct,
-                    throw_max_m=settings.throw_max_m, windows=windows, hw_shift_m=shift_m)
+    im = draw_field(ax_t, grid, threshold_pct=settings.capacity.sgr_threshold_pct,
+                    throw_max_m=settings.field.throw_max_m, windows=windows, hw_shift_m=shift_m)
     draw_sgr_colourbar(ax_t, im)
     ax_t.tick_params(labelleft=False)
     ax_t.set_xlabel("Throw of the tie horizon (m); normal fault, hanging wall down")
@@ -117,22 +117,22 @@ def screen_pairs(
     """Screen every pair of ``pairs_file`` (wells found among the LAS files under
     ``paths``) and write one folder per pair plus ``pairs_summary.csv`` in ``out_dir``
     (``sheets=False``: no ``sheet.pdf``/``sheet.png``).  Returns the summary rows."""
-    from logprep.batch import find_las_files
-    from logprep.lasread import read_well_name
-    from logprep.pipeline import screen_file
-    from logprep.tops import read_tops
+    from logprep.run.batch import find_las_files
+    from logprep.io.las import read_well_name
+    from logprep.run.pipeline import screen_file
+    from logprep.io.tops import read_tops
 
     out = Path(out_dir)
     pairs = read_pairs(pairs_file)
     files = find_las_files(paths)
-    tops = read_tops(settings.tops_file) if settings.tops_file else None
+    tops = read_tops(settings.input.tops_file) if settings.input.tops_file else None
     names: dict[Path, str] = {}
     cache: dict[Path, object] = {}
     taken: set[str] = set()
     rows = []
     for p in pairs.itertuples():
         row = {"footwall": p.footwall, "hangingwall": p.hangingwall, "marker": p.marker,
-               "shift_m": "", "slip_source": settings.pair_slip_source, "status": "ok",
+               "shift_m": "", "slip_source": settings.field.pair_slip_source, "status": "ok",
                "message": "", "sand_sand_windows": "", "min_window_sgr_pct": "", "folder": ""}
         try:
             if not names:
@@ -151,12 +151,12 @@ def screen_pairs(
             else:
                 shift = parse_number(p.shift_m)
             check_hanging_wall_down(shift, p.footwall, p.hangingwall, p.marker or None)
-            windows = two_well_windows(fw.layers, hw.layers, shift, settings.throw_max_m,
-                                       settings.pair_slip_source)
-            step = settings.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
-            grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=settings.throw_max_m,
-                                  throw_step_m=settings.field_throw_step_m, depth_step_m=step,
-                                  slip_source=settings.pair_slip_source)
+            windows = two_well_windows(fw.layers, hw.layers, shift, settings.field.throw_max_m,
+                                       settings.field.pair_slip_source)
+            step = settings.field.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
+            grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=settings.field.throw_max_m,
+                                  throw_step_m=settings.field.field_throw_step_m, depth_step_m=step,
+                                  slip_source=settings.field.pair_slip_source)
             title = f"Two-well screening: {fw.well.name} (footwall) / {hw.well.name} (hanging wall)"
             files_out = {"juxtapositions.csv": csv_bytes(windows), "sgr_field.npz": grid.npz_bytes()}
             if sheets:

@@ -40,7 +40,7 @@ import numpy as np
 import pandas as pd
 
 from logprep.model import Layers
-from logprep.sgr import contact_polygon
+from logprep.fault.sgr import contact_polygon
 
 SSF_INCOMPLETE = 7.0
 """SSF above which smears may be incomplete (Lindsay et al. 1993)."""
@@ -164,7 +164,7 @@ def window_smear(layers: Layers, windows: pd.DataFrame, throw_max_m: float,
 
 
 def with_smear_fields(grid, layers: Layers):
-    """A copy of an :class:`~logprep.sgr.SgrField` carrying ``ssf`` and ``csp_m`` on its
+    """A copy of an :class:`~logprep.fault.sgr.SgrField` carrying ``ssf`` and ``csp_m`` on its
     axes (float32; NaN where the SGR is NaN, i.e. the slipped interval leaves the log)."""
     from dataclasses import replace
 

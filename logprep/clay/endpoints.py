@@ -5,7 +5,7 @@ size, mud, tool, formation).  Here the well is cut into zones, from formation to
 without tops, where the GR baseline steps (a changepoint split), and each zone gets its
 own clean and shale lines from the samples that passed QC.  Picking the lines per zone
 when the baseline shifts is common practice, no source; the changepoint split is the
-exact least-squares changepoint search of :mod:`logprep.blocking` (PELT, Killick,
+exact least-squares changepoint search of :mod:`logprep.layers.blocking` (PELT, Killick,
 Fearnhead & Eckley 2012, JASA 107(500), 1590-1598) on the running median of the GR.
 
 Zoning modes are registered in :data:`ZONINGS`.  Pure numpy/pandas: arrays in, tables out.
@@ -16,10 +16,10 @@ from __future__ import annotations
 import numpy as np
 import pandas as pd
 
-from logprep.blocking import pelt_mean_breaks
+from logprep.changepoint import pelt_mean_breaks
 from logprep.errors import SettingsError
-from logprep.qc import running_median
-from logprep.vshale import resolve_endpoint
+from logprep.clay.qc import running_median
+from logprep.clay.vshale import resolve_endpoint
 
 PICK_COLUMNS = ["zone", "top_m", "base_m", "source", "gr_clean_api", "gr_shale_api",
                 "samples_used", "samples_excluded", "nd_shale_separation", "note"]
@@ -41,9 +41,9 @@ def changepoint_bounds(
     """Sample indices where the GR baseline steps.
 
     The GR is smoothed by a running median over ``smooth_m`` metres (so beds do not count
-    as steps; :func:`logprep.qc.running_median`) and split into segments of constant mean
+    as steps; :func:`logprep.clay.qc.running_median`) and split into segments of constant mean
     by the exact changepoint search of the blocking stage
-    (:func:`logprep.blocking.pelt_mean_breaks`, Killick et al. 2012) with segments at
+    (:func:`logprep.changepoint.pelt_mean_breaks`, Killick et al. 2012) with segments at
     least ``min_zone_m`` long and a cost per change of ``min_step_api^2 x n_min / 2``: the
     least-squares gain of a step of ``min_step_api`` between two segments of ``n_min``
     samples.  Neighbouring segments whose medians differ by less than ``min_step_api``

@@ -11,7 +11,7 @@ Two sources of ``C`` are offered (:data:`SGR_FIELD_SOURCES`):
     the blocked column: ``C`` is linear within each layer with slope the layer's Vsh;
 ``curve``
     the continuous Vsh curve: each sample stands for its sample interval (midpoints between
-    samples, :func:`logprep.blocking.sample_edges_m`), so partial samples at the window
+    samples, :func:`logprep.layers.blocking.sample_edges_m`), so partial samples at the window
     edges count with the length inside the window; ``C`` is linear within each interval.
 
 Both are piecewise-linear cumulative functions; :func:`sgr_field` evaluates them on a
@@ -22,7 +22,7 @@ result is exact wherever the breakpoints of ``C`` lie on nodes (true for both so
 uniformly sampled log).  Where they do not (an uneven depth axis, such as the TVD of a
 deviated well), node interpolation would blur every kink, worst in the ``t -> 0`` column,
 so the field is then evaluated exactly, ``C`` interpolated at ``z - t`` per throw column
-(:func:`logprep.juxtaposition.sgr_from_cumulative_pct`), at a few times the cost.
+(:func:`logprep.fault.juxtaposition.sgr_from_cumulative_pct`), at a few times the cost.
 
 Convention: normal fault, hanging wall down, ``t > 0``; a negative throw (reverse fault)
 takes the slipped interval ``[z, z - t]`` below ``z`` and falls out of the same formula.
@@ -41,9 +41,9 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
-from logprep.blocking import sample_edges_m
+from logprep.layers.blocking import sample_edges_m
 from logprep.errors import SettingsError
-from logprep.juxtaposition import (
+from logprep.fault.juxtaposition import (
     JUXTAPOSITION_CLASSES, _PAIR_CODE, cumulative_clay, juxtaposition_grid, sgr_from_cumulative_pct,
 )
 from logprep.model import Layers
@@ -59,7 +59,7 @@ def cumulative_clay_curve(depth_m, vsh) -> tuple[np.ndarray, np.ndarray]:
     """Sample-interval edges (m) and the clay thickness above each edge (m) of a Vsh curve.
 
     Each sample stands for the interval between the midpoints to its neighbours
-    (:func:`logprep.blocking.sample_edges_m`), so ``C`` is piecewise linear with slope the
+    (:func:`logprep.layers.blocking.sample_edges_m`), so ``C`` is piecewise linear with slope the
     sample's Vsh, and the clay of any interval is a difference of two interpolations:
     samples cut by a window edge count with the length inside the window.
     """
@@ -84,7 +84,7 @@ class SgrField:
     sgr_pct : ndarray of float32, shape (nz, nt)
         Shale gouge ratio (%), NaN where the slipped interval leaves the logged column.
     juxtaposition : ndarray of int8, shape (nz, nt)
-        Class codes of :data:`logprep.juxtaposition.JUXTAPOSITION_CLASSES` (0 outside).
+        Class codes of :data:`logprep.fault.juxtaposition.JUXTAPOSITION_CLASSES` (0 outside).
     source : str
         Key of :data:`SGR_FIELD_SOURCES` (or a two-well description).
     extra : dict of str to ndarray
@@ -243,7 +243,7 @@ def juxtaposition_field(layers: Layers, g: float, throw_m, rows_every: int = 1) 
     """Juxtaposition class codes on the same rows and throws as :func:`sgr_field_pct`.
 
     A depth on a layer boundary belongs to the layer below it (as
-    :func:`logprep.juxtaposition.layer_index`).  Returns int8, shape (nz, nt).
+    :func:`logprep.fault.juxtaposition.layer_index`).  Returns int8, shape (nz, nt).
     """
     throw = np.asarray(throw_m, float)
     m = max(1, int(rows_every))

@@ -1,11 +1,13 @@
-"""Settings files: every :class:`~logprep.pipeline.ScreenSettings` field (and the sweep
+"""Settings files: every :class:`~logprep.run.settings.ScreenSettings` field (and the sweep
 ranges of ``logprep tune``) read from TOML, and the effective settings of a run written back
 so the run can be repeated exactly.
 
-Layout: ScreenSettings fields as top-level keys (``sand_cutoff = 0.3``,
-``gr_clean = "p5"``); sweep ranges in an optional ``[tune]`` table.  A setting that is None
-(not set) is left out of a written file.  Unknown keys, and values of the wrong type, are
-errors naming the file and the key.
+Layout: one table per settings group (``[clay]``, ``[layers]``, ``[field]``, ``[capacity]``,
+``[fault_rock]``, ``[input]``; see :mod:`logprep.run.settings`) holding that group's fields
+(``[layers]`` ``sand_cutoff = 0.3``); sweep ranges in an optional ``[tune]`` table.  Files of
+the first release, with every field as a top-level key (``sand_cutoff = 0.3``), are still
+read.  A setting that is None (not set) is left out of a written file.  Unknown keys, keys in
+the wrong table, and values of the wrong type are errors naming the file and the key.
 """
 
 from __future__ import annotations
@@ -20,6 +22,8 @@ from pathlib import Path
 import tomli_w
 
 from logprep.errors import LogprepError
+from logprep.report.writers import write_bytes_atomic
+from logprep.run.settings import FIELD_GROUP, GROUPS
 
 SETTINGS_FILE_NAME = "logprep-settings.toml"
 """File name of the effective settings written next to a run's outputs."""
@@ -38,10 +42,12 @@ class ConfigError(LogprepError, ValueError):
 
 
 def _settings_types() -> dict[str, object]:
-    from logprep.pipeline import ScreenSettings
-
-    hints = typing.get_type_hints(ScreenSettings)
-    return {f.name: hints[f.name] for f in fields(ScreenSettings)}
+    """Flat field name -> its type hint, over every settings group."""
+    out = {}
+    for cls in GROUPS.values():
+        hints = typing.get_type_hints(cls)
+        out.update({f.name: hints[f.name] for f in fields(cls)})
+    return out
 
 
 def _accepts(hint, value) -> bool:
@@ -68,6 +74,33 @@ def _type_name(hint) -> str:
     return text.replace("tuple[float, ...]", "list of numbers")
 
 
+def _flatten_groups(data: dict, source: str):
+    """``(key, value)`` pairs of a settings document with each group table opened up; a
+    flat top-level field (first-release layout) passes as it is.  A field in the wrong
+    table, or given twice, is an error."""
+    seen: dict[str, str] = {}
+    for key, value in data.items():
+        if key in GROUPS and isinstance(value, dict):
+            for k, v in value.items():
+                if k in FIELD_GROUP and FIELD_GROUP[k] != key:
+                    raise ConfigError(f"{source}: [{key}] {k} belongs in the [{FIELD_GROUP[k]}] table")
+                if k not in FIELD_GROUP:
+                    valid = [f for f, g in FIELD_GROUP.items() if g == key]
+                    near = difflib.get_close_matches(k, valid, n=1)
+                    raise ConfigError(
+                        f"{source}: unknown key [{key}] {k!r}; valid keys there: {', '.join(valid)}"
+                        + (f"; did you mean {near[0]!r}?" if near else ""))
+                if k in seen:
+                    raise ConfigError(f"{source}: {k} is given twice ({seen[k]} and [{key}])")
+                seen[k] = f"[{key}]"
+                yield k, v
+        else:
+            if key in seen:
+                raise ConfigError(f"{source}: {key} is given twice ({seen[key]} and at the top level)")
+            seen[key] = "the top level"
+            yield key, value
+
+
 def parse_settings_dict(data: dict, source: str = "settings") -> tuple[dict, dict]:
     """Split and check a parsed TOML document: ``(settings fields, tune ranges)``.
 
@@ -76,7 +109,7 @@ def parse_settings_dict(data: dict, source: str = "settings") -> tuple[dict, dic
     """
     types_ = _settings_types()
     settings, tune = {}, {}
-    for key, value in data.items():
+    for key, value in _flatten_groups(data, source):
         if key == "tune" and isinstance(value, dict):
             for k, v in value.items():
                 if k not in TUNE_KEYS:
@@ -89,10 +122,11 @@ def parse_settings_dict(data: dict, source: str = "settings") -> tuple[dict, dic
                 tune[k] = v
             continue
         if key not in types_:
-            near = difflib.get_close_matches(key, list(types_) + ["tune"], n=1)
+            near = difflib.get_close_matches(key, list(types_) + list(GROUPS) + ["tune"], n=1)
             raise ConfigError(
-                f"{source}: unknown key {key!r}; valid keys: {', '.join(types_)}, and a [tune] "
-                f"table with {', '.join(TUNE_KEYS)}" + (f"; did you mean {near[0]!r}?" if near else ""))
+                f"{source}: unknown key {key!r}; valid keys: the tables {', '.join(f'[{g}]' for g in GROUPS)} "
+                f"and [tune] ({', '.join(TUNE_KEYS)}), or a setting's name at the top level ("
+                f"{', '.join(types_)})" + (f"; did you mean {near[0]!r}?" if near else ""))
         hint = types_[key]
         if not _accepts(hint, value):
             raise ConfigError(f"{source}: {key} = {value!r} is not a {_type_name(hint)}")
@@ -122,12 +156,15 @@ def settings_toml(settings, tune: dict | None = None) -> str:
     """The TOML text of ``settings`` (a :class:`ScreenSettings`) and optional tune ranges;
     :func:`read_config` of it gives the same settings back."""
     body = {}
-    for key, value in settings.to_dict().items():
-        if value is None:
-            continue
-        if key in PATH_KEYS:
-            value = str(Path(value).resolve())
-        body[key] = list(value) if isinstance(value, tuple) else value
+    for group, values in settings.to_dict().items():
+        table = {}
+        for key, value in values.items():
+            if value is None:
+                continue
+            if key in PATH_KEYS:
+                value = str(Path(value).resolve())
+            table[key] = list(value) if isinstance(value, tuple) else value
+        body[group] = table
     if tune:
         body["tune"] = {k: list(v) if isinstance(v, tuple) else v for k, v in tune.items()}
     head = ("# logprep settings: every value used by the run, so it can be repeated with\n"
@@ -138,8 +175,6 @@ def settings_toml(settings, tune: dict | None = None) -> str:
 
 def write_settings(path: str | Path, settings, tune: dict | None = None) -> Path:
     """Write :func:`settings_toml` to ``path`` atomically; returns the path."""
-    from logprep.outputs import write_bytes_atomic
-
     path = Path(path)
     write_bytes_atomic(path, settings_toml(settings, tune).encode("utf-8"))
     return path

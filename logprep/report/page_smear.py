@@ -1,6 +1,6 @@
 """Sheet page with the shale smear indicators over the triangle diagram (SSF and CSP).
 
-Registered in :data:`logprep.sheet.EXTRA_PAGES`.  Colours: perceptually uniform matplotlib
+Registered in :data:`logprep.report.sheet.PAGES`.  Colours: perceptually uniform matplotlib
 maps (viridis) and the Okabe & Ito (2008) vermillion for the sand-sand windows.
 """
 
@@ -11,8 +11,11 @@ import numpy as np
 from matplotlib.colors import LogNorm
 from matplotlib.figure import Figure
 
-from logprep.sgr import contact_polygon
-from logprep.smear import SSF_INCOMPLETE
+from logprep.fault.sgr import contact_polygon
+from logprep.fault.smear import SSF_INCOMPLETE
+from logprep.report.draw import (
+    INK, MAX_DRAWN_ROWS, NO_DATA, PAGE_SIZE_IN, WINDOW_INK, draw_contours, draw_footer, field_ylim,
+)
 
 SSF_RANGE = (0.0, 2 * SSF_INCOMPLETE)
 SSF_CONTOURS = (4.0, SSF_INCOMPLETE)
@@ -31,7 +34,6 @@ def _outline_windows(ax, windows, throw_max_m, ink):
 
 
 def _image(ax, grid, values, cmap, norm):
-    from logprep.sheet import MAX_DRAWN_ROWS, NO_DATA, field_ylim
 
     step = max(1, int(np.ceil(grid.depth_m.size / MAX_DRAWN_ROWS)))
     depth, throw = grid.depth_m[::step], grid.throw_m
@@ -49,7 +51,6 @@ def _image(ax, grid, values, cmap, norm):
 
 def smear_page(result) -> list[Figure]:
     """SSF and CSP fields of the well, sand-sand windows outlined."""
-    from logprep.sheet import INK, PAGE_SIZE_IN, WINDOW_INK, draw_contours, draw_footer
 
     grid = result.grid
     if grid is None or "ssf" not in grid.extra:
@@ -60,7 +61,7 @@ def smear_page(result) -> list[Figure]:
     gs = fig.add_gridspec(1, 2, left=0.05, right=0.98, top=0.88, bottom=0.2, wspace=0.12)
     ax1 = fig.add_subplot(gs[0])
     ax2 = fig.add_subplot(gs[1], sharey=ax1)
-    throw_max = result.settings.throw_max_m
+    throw_max = result.settings.field.throw_max_m
 
     depth, throw, ssf, im = _image(ax1, grid, grid.extra["ssf"], "viridis",
                                    matplotlib.colors.Normalize(*SSF_RANGE))

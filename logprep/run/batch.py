@@ -4,14 +4,15 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field
 from pathlib import Path
-from typing import Callable, Iterable
+from collections.abc import Callable, Iterable
 
-from logprep.config import SETTINGS_FILE_NAME, write_settings
+from logprep.run.config import SETTINGS_FILE_NAME, write_settings
 from logprep.errors import LogprepError
-from logprep.outputs import folder_name, prepare_out_dir, render_well, write_summary, write_well
-from logprep.pipeline import ScreenSettings, screen_file
-from logprep.survey import check_survey_dir, unmatched_survey_warnings
-from logprep.tops import read_tops
+from logprep.report.writers import folder_name, prepare_out_dir, render_well, write_summary, write_well
+from logprep.run.pipeline import screen_file
+from logprep.run.settings import ScreenSettings
+from logprep.io.survey import check_survey_dir, unmatched_survey_warnings
+from logprep.io.tops import read_tops
 
 
 def find_las_files(paths: Iterable[str | Path]) -> list[Path]:
@@ -55,7 +56,7 @@ def screen_one(path: Path, folder: str, out_dir: Path, settings: ScreenSettings,
     message naming the file; nothing is written for that file.  ``sheets=False`` writes
     the tables only.  Top-level so that worker processes can run it.
     """
-    from logprep.sheet import build_sheet  # drawing is imported only when needed
+    from logprep.report.sheet import build_sheet  # drawing is imported only when needed
 
     row = {"well": folder, "source": str(path), "status": "ok", "message": "",
            "layers": "", "sand_sand_windows": "", "min_window_sgr_pct": "", "folder": ""}
@@ -89,11 +90,11 @@ def screen_paths(
 ) -> BatchReport:
     """Screen every LAS file under ``paths`` and write results below ``out_dir``.
 
-    Each file gets its own folder (see :func:`logprep.outputs.folder_name`) holding
+    Each file gets its own folder (see :func:`logprep.report.writers.folder_name`) holding
     ``layers.csv``, ``juxtapositions.csv``, ``sheet.pdf`` and ``sheet.png`` and the other
     per-well files; ``out_dir/summary.csv`` lists every file with ``status`` ``ok`` or
     ``error`` (rewritten whole after each well, in input order), and
-    ``out_dir/logprep-settings.toml`` holds the settings used (see :mod:`logprep.config`).
+    ``out_dir/logprep-settings.toml`` holds the settings used (see :mod:`logprep.run.config`).
     A :class:`LogprepError` for one file is recorded (and passed to ``on_error``) and the
     batch goes on; any other exception is a bug and propagates.  ``jobs`` > 1 screens wells
     in that many worker processes (results are the same as with one); ``sheets=False``
@@ -107,9 +108,9 @@ def screen_paths(
         raise LogprepError(f"--jobs must be 1 or more (got {jobs})")
     # inputs shared by every well are checked once, before any well is screened
     prepare_out_dir(out)
-    tops = read_tops(settings.tops_file) if settings.tops_file else None
-    if settings.survey_dir:
-        check_survey_dir(settings.survey_dir)
+    tops = read_tops(settings.input.tops_file) if settings.input.tops_file else None
+    if settings.input.survey_dir:
+        check_survey_dir(settings.input.survey_dir)
     write_settings(out / SETTINGS_FILE_NAME, settings)
     taken: set[str] = set()
     folders = [folder_name(f, taken) for f in files]
@@ -138,7 +139,7 @@ def screen_paths(
                 record(futures[fut], fut.result())
     done_rows = [r for r in rows if r is not None]
     notes = []
-    if settings.survey_dir:
+    if settings.input.survey_dir:
         names = [r["well"] for r in done_rows] + [Path(r["source"]).stem for r in done_rows]
-        notes = unmatched_survey_warnings(settings.survey_dir, names)
+        notes = unmatched_survey_warnings(settings.input.survey_dir, names)
     return BatchReport(summary_path=summary, rows=done_rows, warnings=notes)

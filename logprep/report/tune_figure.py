@@ -11,7 +11,7 @@ from matplotlib.figure import Figure
 from matplotlib.ticker import MaxNLocator
 
 from logprep import __version__
-from logprep.caution import CAUTION
+from logprep.report.caution import CAUTION
 
 LEAK_COLOUR, SEAL_COLOUR, INK = "#D55E00", "#0072B2", "#222222"
 PAGE_SIZE_IN = (16.5, 11.7)  # A3 landscape, as the screening sheet
@@ -42,8 +42,8 @@ def _heatmap(ax, table, value, bed, cmap, vmin, vmax, fmt, ref):
                         color="white" if dark else INK)
     ax.set_xticks(range(len(sands)), [f"{x:g}" for x in sands], fontsize=7)
     ax.set_yticks(range(len(shales)), [f"{x:g}" for x in shales], fontsize=7)
-    if np.isclose(bed, ref.min_bed_m) and ref.sand_cutoff in sands and ref.shale_cutoff in shales:
-        j, i = list(sands).index(ref.sand_cutoff), list(shales).index(ref.shale_cutoff)
+    if np.isclose(bed, ref.layers.min_bed_m) and ref.layers.sand_cutoff in sands and ref.layers.shale_cutoff in shales:
+        j, i = list(sands).index(ref.layers.sand_cutoff), list(shales).index(ref.layers.shale_cutoff)
         ax.add_patch(_box(j, i))
     return im
 
@@ -54,11 +54,13 @@ def _box(j, i):
     return Rectangle((j - 0.5, i - 0.5), 1, 1, fill=False, ec=INK, lw=2.2)
 
 
-def sweep_figure(sweep) -> Figure:
+def sweep_figure(sweep, stable) -> Figure:
     """One page: verdict flips and lowest window SGR over the cut-offs for each minimum
-    bed, the stability of every reference window, and a summary."""
-    from logprep.tune import stable_settings
+    bed, the stability of every reference window, and a summary.
 
+    ``sweep`` is a :class:`~logprep.run.tune.Sweep`; ``stable`` its stable settings (the
+    table of :func:`~logprep.run.tune.stable_settings`), passed in by the caller.
+    """
     table, ref = sweep.table, sweep.settings
     res = sweep.reference
     beds = sorted(table.loc[~table["is_reference"], "min_bed_m"].unique())
@@ -93,10 +95,10 @@ def sweep_figure(sweep) -> Figure:
         cb.update_ticks()
         cb2 = fig.colorbar(im2, cax=fig.add_subplot(gs[1, nb]))
         cb2.set_label("lowest window SGR (%)", fontsize=8)
-        cb2.ax.axhline(ref.sgr_threshold_pct, color=LEAK_COLOUR, lw=2)
+        cb2.ax.axhline(ref.capacity.sgr_threshold_pct, color=LEAK_COLOUR, lw=2)
     fig.text(0.05, 0.925, "Row 1: windows whose leak / no-leak verdict differs from the reference "
              "(reference windows that flip, plus new leaking windows; 0 = stable).\nRow 2: lowest SGR over windows between different sands; "
-             f"below {ref.sgr_threshold_pct:g} % (red mark on the scale) a window leaks. "
+             f"below {ref.capacity.sgr_threshold_pct:g} % (red mark on the scale) a window leaks. "
              "Framed cell: the reference setting.", fontsize=8.5)
 
     ax = fig.add_subplot(gs[2, : max(nb - 2, 1)])
@@ -122,11 +124,10 @@ def sweep_figure(sweep) -> Figure:
 
     tx = fig.add_subplot(gs[2, max(nb - 2, 1):])
     tx.set_axis_off()
-    stable = stable_settings(sweep)
     r0 = table[table["is_reference"]].iloc[0]
     lines = [
-        f"Reference: sand <= {ref.sand_cutoff:g}, shale >= {ref.shale_cutoff:g}, min bed "
-        f"{ref.min_bed_m:g} m, blocking {ref.blocking}",
+        f"Reference: sand <= {ref.layers.sand_cutoff:g}, shale >= {ref.layers.shale_cutoff:g}, min bed "
+        f"{ref.layers.min_bed_m:g} m, blocking {ref.layers.blocking}",
         f"  {int(r0.layers)} layers, {int(r0.sands)} sands, net-to-gross {r0.net_to_gross:.2f}",
         f"  {int(r0.sand_sand_windows)} windows, {int(r0.leak_windows)} leak; lowest SGR "
         f"{r0.min_window_sgr_pct:.1f} %",
@@ -135,8 +136,8 @@ def sweep_figure(sweep) -> Figure:
         f"Settings with no flip here or one step away: {len(stable)}",
     ]
     if len(stable):
-        d = ((stable["sand_cutoff"] - ref.sand_cutoff) ** 2 + (stable["shale_cutoff"] - ref.shale_cutoff) ** 2
-             + ((stable["min_bed_m"] - ref.min_bed_m) / 10) ** 2)
+        d = ((stable["sand_cutoff"] - ref.layers.sand_cutoff) ** 2 + (stable["shale_cutoff"] - ref.layers.shale_cutoff) ** 2
+             + ((stable["min_bed_m"] - ref.layers.min_bed_m) / 10) ** 2)
         b = stable.loc[d.idxmin()]
         lines.append(f"  nearest to the reference: sand {b.sand_cutoff:g}, shale {b.shale_cutoff:g}, "
                      f"min bed {b.min_bed_m:g} m")
@@ -146,9 +147,9 @@ def sweep_figure(sweep) -> Figure:
                  fontweight="bold")
     fig.text(0.05, 0.085,
              f"Source: {res.well.source}   sha256 {res.well.sha256[:16]}...   logprep {__version__}   "
-             f"transform {ref.transform}; GR clean {res.gr_clean_api:.1f} API, shale "
-             f"{res.gr_shale_api:.1f} API; throws 0-{ref.throw_max_m:g} m; SGR threshold "
-             f"{ref.sgr_threshold_pct:g} %", fontsize=7, family="monospace")
+             f"transform {ref.clay.transform}; GR clean {res.gr_clean_api:.1f} API, shale "
+             f"{res.gr_shale_api:.1f} API; throws 0-{ref.field.throw_max_m:g} m; SGR threshold "
+             f"{ref.capacity.sgr_threshold_pct:g} %", fontsize=7, family="monospace")
     fig.text(0.05, 0.02, "CAUTION: " + CAUTION, fontsize=8, va="bottom", wrap=True,
              color="#7A1F00", bbox=dict(facecolor="#FFF4E5", edgecolor=LEAK_COLOUR, pad=4))
     return fig

@@ -18,7 +18,7 @@ References
 from __future__ import annotations
 
 import re
-from typing import Callable
+from collections.abc import Callable
 
 import numpy as np
 

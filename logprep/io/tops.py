@@ -18,8 +18,9 @@ from pathlib import Path
 
 import pandas as pd
 
-from logprep.csvtable import decode_text, read_csv_table
+from logprep.io.csvtable import decode_text, read_csv_table
 from logprep.errors import LogprepError
+from logprep.model import WellLog
 
 TOPS_COLUMNS = ["well", "top_m", "name"]
 
@@ -91,3 +92,13 @@ def tops_for_well(tops: pd.DataFrame, *names: str) -> pd.DataFrame:
     keys = {well_key(n) for n in names if n}
     mask = tops["well"].map(well_key).isin(keys)
     return tops[mask].reset_index(drop=True)
+
+
+def well_tops(well: WellLog, tops_file: str | None, tops: pd.DataFrame | None = None) -> pd.DataFrame:
+    """The tops of ``well`` from ``tops`` (all wells) or from ``tops_file``;
+    matched on the WELL name or the file stem.  Empty when there are none."""
+    if tops is None:
+        if not tops_file:
+            return pd.DataFrame(columns=TOPS_COLUMNS)
+        tops = read_tops(tops_file)
+    return tops_for_well(tops, well.name, Path(well.source).stem)

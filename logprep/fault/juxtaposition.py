@@ -23,7 +23,7 @@ import itertools
 import numpy as np
 import pandas as pd
 
-from logprep.model import LITHOLOGIES, Layers
+from logprep.model import Layers
 
 JUXTAPOSITION_CLASSES: dict[int, str] = {
     0: "outside",
@@ -115,7 +115,7 @@ def sgr_from_cumulative_pct(bounds_m, clay_m, depth_m, throw_m):
 
     ``C`` is given at ``bounds_m`` (increasing) as ``clay_m`` and is linear in between
     (piecewise-constant Vsh), as from :func:`cumulative_clay` or
-    :func:`logprep.sgr.cumulative_clay_curve`.  ``SGR = 100 (C(z) - C(z - t)) / t``
+    :func:`logprep.fault.sgr.cumulative_clay_curve`.  ``SGR = 100 (C(z) - C(z - t)) / t``
     (Yielding et al. 1997).  Inputs broadcast.  NaN where ``z`` or ``z - t`` leaves
     ``[bounds_m[0], bounds_m[-1]]``; at ``t = 0`` the limit, 100 x Vsh just above ``z``.
     A negative throw (reverse fault) takes the slipped interval ``[z, z - t]`` below ``z``.

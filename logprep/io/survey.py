@@ -29,9 +29,10 @@ from pathlib import Path
 import numpy as np
 import pandas as pd
 
-from logprep.csvtable import read_csv_table
+from logprep.io.csvtable import read_csv_table
 from logprep.errors import LogprepError
-from logprep.tops import well_key
+from logprep.io.tops import well_key
+from logprep.model import WellLog
 
 FT = 0.3048
 
@@ -226,3 +227,23 @@ def well_to_tvd(well, md_m, inc_deg, azi_deg, survey_path: str | Path):
         raise SurveyError(f"{survey_path}: TVD does not increase at MD {bad:.1f} m (horizontal or "
                           f"upward hole); screening needs a depth that increases down the log")
     return replace(well, depth_m=tvd)
+
+
+def deviated_well(well: WellLog, survey_dir: str | None, picks: pd.DataFrame):
+    """The well (and its tops) on TVD when ``survey_dir`` holds a survey for it.
+
+    Returns ``(well, picks, depth_reference, note)``; unchanged with reference
+    ``"as logged"`` and no note for a well without a survey (taken as vertical).
+    """
+    if not survey_dir:
+        return well, picks, "as logged", None
+    path = find_survey(survey_dir, well.name, Path(well.source).stem)
+    if path is None:
+        return well, picks, "as logged", None
+    md, inc, azi = read_survey(path)
+    tvd_well = well_to_tvd(well, md, inc, azi, path)
+    if len(picks):
+        picks = picks.assign(top_m=tvd_at_md(picks["top_m"].to_numpy(float), md, inc, azi))
+    return (tvd_well, picks, "TVD",
+            f"depth axis is TVD below the log's depth reference, from survey {path.name} "
+            f"(minimum curvature; max inclination {inc.max():.1f} deg); tops converted too")

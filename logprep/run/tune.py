@@ -1,7 +1,7 @@
 """Sensitivity of the screening to the blocking choices: sweep the sand and shale cut-offs
 and the minimum bed thickness, and see where each window's verdict holds and where it flips.
 
->>> from logprep.tune import sweep_file                                    # doctest: +SKIP
+>>> from logprep.run.tune import sweep_file                                    # doctest: +SKIP
 >>> sw = sweep_file("A-1.las", sand_cutoffs=[0.25, 0.3, 0.35])              # doctest: +SKIP
 >>> sw.table[["sand_cutoff", "sands", "windows_changed"]]                  # doctest: +SKIP
 
@@ -14,7 +14,7 @@ it.  To follow a window of the reference setting through other settings, its are
 triangle diagram (footwall depth x throw) is kept fixed and asked, for each setting: does
 any sand face sand there with SGR below the threshold (``leak``), only at or above it
 (``seal``), or does no sand face sand there at all (``apart``)?  The SGR extremes over each
-overlap are exact, as in :func:`logprep.juxtaposition.sand_windows`.
+overlap are exact, as in :func:`logprep.fault.juxtaposition.sand_windows`.
 """
 
 from __future__ import annotations
@@ -26,11 +26,15 @@ from pathlib import Path
 import numpy as np
 import pandas as pd
 
-from logprep.blocking import block_with_boundaries, net_to_gross
+from logprep.layers.blocking import block_with_boundaries, net_to_gross
 from logprep.errors import SettingsError
-from logprep.juxtaposition import _sgr_extremes, cumulative_clay, sand_windows
+from logprep.fault.juxtaposition import _sgr_extremes, cumulative_clay, sand_windows
 from logprep.model import Layers
-from logprep.pipeline import ScreenSettings, WellScreening, screen_file, screen_well
+from logprep.run.pipeline import WellScreening, screen_file, screen_well
+from logprep.report.tune_figure import sweep_figure
+from logprep.report.writers import csv_bytes, pdf_bytes, png_bytes, write_bytes_atomic
+from logprep.run.config import SETTINGS_FILE_NAME, settings_toml
+from logprep.run.settings import ScreenSettings
 
 DEFAULT_SAND_CUTOFFS = (0.20, 0.25, 0.30, 0.35, 0.40, 0.45, 0.50)
 DEFAULT_SHALE_CUTOFFS = (0.50, 0.55, 0.60, 0.65, 0.70, 0.75, 0.80)
@@ -197,14 +201,14 @@ def sweep_screening(
         (min_beds_m, "minimum beds")))
     if min(beds) < 0 or min(sands) < 0 or max(shales) > 1:
         raise SettingsError("sweep: cut-offs must lie in 0-1 and minimum beds be >= 0 m")
-    thr = s.sgr_threshold_pct
-    forced = result.tops["top_m"].to_numpy(float) if s.honour_tops and len(result.tops) else ()
+    thr = s.capacity.sgr_threshold_pct
+    forced = result.tops["top_m"].to_numpy(float) if s.layers.honour_tops and len(result.tops) else ()
     ref_all = result.windows
     ref = ref_all[~ref_all["self_juxtaposed"]].reset_index(drop=True)
     names = [f"w{k + 1}" for k in range(len(ref))]
     ref_verdict = ["leak" if x < thr else "seal" for x in ref["sgr_min_pct"]]
 
-    combos = [(s.sand_cutoff, s.shale_cutoff, s.min_bed_m)]
+    combos = [(s.layers.sand_cutoff, s.layers.shale_cutoff, s.layers.min_bed_m)]
     combos += [c for c in itertools.product(sands, shales, beds) if c[0] < c[1]]
     if len(combos) == 1:
         raise SettingsError(
@@ -215,10 +219,10 @@ def sweep_screening(
         if k == 0:
             layers, windows = result.layers, result.windows
         else:
-            kw = s.blocking_kwargs() | dict(sand_cutoff=sand, shale_cutoff=shale, min_bed_m=bed)
-            layers = block_with_boundaries(s.blocking, result.depth_m, result.vsh, forced,
+            kw = s.layers.blocking_kwargs() | dict(sand_cutoff=sand, shale_cutoff=shale, min_bed_m=bed)
+            layers = block_with_boundaries(s.layers.blocking, result.depth_m, result.vsh, forced,
                                            filled=result.filled, **kw)
-            windows = sand_windows(layers, s.throw_max_m)
+            windows = sand_windows(layers, s.field.throw_max_m)
         cross = windows[~windows["self_juxtaposed"]]
         verdicts = window_verdicts(ref, layers, windows, thr)
         leaking = cross[cross["sgr_min_pct"] < thr]
@@ -289,11 +293,7 @@ def write_sweep(sweep: Sweep, out_dir: str | Path) -> dict[str, Path]:
     """Write ``tune.csv`` (the table), ``tune-windows.csv``, ``tune.pdf`` and ``tune.png``
     (the one-page figure) and ``logprep-settings.toml`` (the reference settings and the
     ranges) into ``out_dir``, each atomically.  Returns the paths by file name."""
-    from logprep.config import SETTINGS_FILE_NAME, settings_toml
-    from logprep.outputs import csv_bytes, pdf_bytes, png_bytes, write_bytes_atomic
-    from logprep.tunesheet import sweep_figure
-
-    fig = sweep_figure(sweep)
+    fig = sweep_figure(sweep, stable_settings(sweep))
     files = {
         "tune.csv": csv_bytes(sweep.table),
         "tune-windows.csv": csv_bytes(sweep.windows),

@@ -1,0 +1,72 @@
+"""Settings of the clay-volume stage: transform, GR lines, zoning, neutron-density and the
+GR quality checks."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from logprep.clay.endpoints import ZONINGS
+from logprep.clay.vshale import get_combination, get_transform, parse_endpoint
+from logprep.errors import SettingsError, require_finite_fields
+
+
+@dataclass(frozen=True)
+class ClaySettings:
+    """Every choice of the clay-volume stage.  Defaults are starting points, not calibrations.
+
+    Attributes
+    ----------
+    transform : str
+        IGR -> Vsh transform, a key of :data:`logprep.clay.vshale.TRANSFORMS`.
+    gr_clean, gr_shale : float or str
+        GR endpoints: a value in API, or a percentile ``"pN"`` of the well's readings.
+    zoning : str
+        How the well is cut into zones for the GR endpoint picks, one of
+        :data:`logprep.clay.endpoints.ZONINGS`: ``auto`` (tops when the well has some, else
+        changepoints of the GR baseline), ``tops``, ``changepoint`` or ``none``.
+    zone_min_m : float
+        Shortest zone (m) the changepoint split makes.
+    zone_step_api : float
+        Least step (API) of the GR baseline between two changepoint zones.
+    min_contrast : float
+        A zone whose clean-shale contrast is below this fraction of the well's is treated
+        as one-sided (see :func:`logprep.clay.endpoints.pick_endpoints`).
+    vsh_combine : str
+        How the GR and neutron-density Vsh make the chosen Vsh, a key of
+        :data:`logprep.clay.vshale.COMBINATIONS` (``gr`` ignores neutron-density).
+    washout_in : float
+        Caliper over bit size (inches) above which a sample is a washout.
+    drho_max_g_cm3 : float
+        Density correction ``|DRHO|`` (g/cm3) above which the density reading is not
+        trusted: neutron-density Vsh is not used there (GR alone).
+    """
+
+    transform: str = "linear"
+    gr_clean: float | str = "p5"
+    gr_shale: float | str = "p95"
+    zoning: str = "auto"
+    zone_min_m: float = 400.0
+    zone_step_api: float = 8.0
+    min_contrast: float = 0.7
+    vsh_combine: str = "mean"
+    washout_in: float = 1.5
+    drho_max_g_cm3: float = 0.10
+
+    def __post_init__(self) -> None:
+        require_finite_fields(self)
+        get_transform(self.transform)
+        get_combination(self.vsh_combine)
+        if self.zoning not in ZONINGS:
+            raise SettingsError(f"unknown zoning {self.zoning!r}; choose one of {', '.join(ZONINGS)}")
+        if not self.zone_min_m > 0:
+            raise SettingsError(f"--zone-min must be > 0 m (got {self.zone_min_m:g})")
+        if not self.zone_step_api >= 0:
+            raise SettingsError(f"--zone-step must be >= 0 API (got {self.zone_step_api:g})")
+        if not 0 <= self.min_contrast <= 1:
+            raise SettingsError(f"--min-contrast must be within 0-1 (got {self.min_contrast:g})")
+        if not self.washout_in > 0:
+            raise SettingsError(f"--washout must be > 0 in (got {self.washout_in:g})")
+        if not self.drho_max_g_cm3 > 0:
+            raise SettingsError(f"--drho-max must be > 0 g/cm3 (got {self.drho_max_g_cm3:g})")
+        object.__setattr__(self, "gr_clean", parse_endpoint(self.gr_clean))
+        object.__setattr__(self, "gr_shale", parse_endpoint(self.gr_shale))

@@ -1,0 +1,121 @@
+"""The clay-volume stage of one well: GR quality flags, zoned endpoint picks, GR and
+neutron-density Vsh and their combination (the functions of :mod:`logprep.clay.qc`,
+:mod:`logprep.clay.endpoints` and :mod:`logprep.clay.vshale` in order)."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+import pandas as pd
+
+from logprep.clay.endpoints import lines_per_sample, nd_shale_separation, pick_endpoints, zone_bounds
+from logprep.clay.qc import ND_ONLY, REPLACED, QcSettings, any_flag, density_correction_flags, gr_flags, inches
+from logprep.clay.settings import ClaySettings
+from logprep.clay.vshale import (
+    density_correction_g_cm3, density_g_cm3, density_porosity, gamma_ray_index, gas_crossover,
+    get_combination, get_transform, neutron_v_v, vsh_neutron_density,
+)
+from logprep.errors import SettingsError
+from logprep.io.las import well_curve
+from logprep.model import WellLog
+
+
+@dataclass(frozen=True)
+class ClayVolume:
+    """The clay-volume stage of one well (see :func:`clay_volume`)."""
+
+    depth_m: np.ndarray
+    gr_api: np.ndarray
+    vsh_gr: np.ndarray
+    vsh_nd: np.ndarray
+    vsh: np.ndarray
+    qc_flags: dict
+    picks: pd.DataFrame
+    gr_clean_line: np.ndarray
+    gr_shale_line: np.ndarray
+    gr_clean_api: float
+    gr_shale_api: float
+    notes: tuple[str, ...]
+
+
+def _curve_in(well: WellLog, kind: str, sl: slice, convert, notes: list[str]):
+    """An auxiliary curve (caliper, bit size, neutron, density...) in logprep's units, or
+    None when the well has none.  A unit logprep cannot convert leaves the curve out with a
+    note (on the sheet) rather than failing the well: the gamma ray alone still screens it."""
+    found = well_curve(well, kind)
+    if found is None:
+        return None
+    values, unit = found
+    try:
+        return convert(values[sl], unit)
+    except SettingsError as exc:
+        notes.append(f"{kind.upper()} not used: {exc}")
+        return None
+
+
+def clay_volume(well: WellLog, settings: ClaySettings = ClaySettings(),
+                tops: pd.DataFrame | None = None) -> ClayVolume:
+    """GR QC, zoned endpoint picks, GR and neutron-density Vsh and their combination,
+    over the interval from the first to the last valid GR sample.
+
+    ``tops`` are this well's tops (columns ``well, top_m, name``) or None.  ``vsh`` is
+    NaN where the GR is missing or was replaced after QC (interpolated later).
+    """
+    gr_all = well.gr_api
+    valid = np.flatnonzero(np.isfinite(gr_all))
+    if valid.size < 2:
+        raise SettingsError(f"{well.source}: fewer than two valid GR samples")
+    sl = slice(valid[0], valid[-1] + 1)
+    depth, gr_read = well.depth_m[sl], gr_all[sl]
+    notes = []
+    cali = _curve_in(well, "cali", sl, inches, notes)
+    bs = _curve_in(well, "bs", sl, inches, notes)
+    flags = gr_flags(depth, gr_read, cali_in=cali, bs_in=bs,
+                     settings=QcSettings(washout_in=settings.washout_in))
+    gr = np.where(any_flag(flags, REPLACED), np.nan, gr_read)
+    exclude = any_flag(flags, [k for k in flags if k not in ND_ONLY])
+    bounds, source, names = zone_bounds(
+        depth, np.where(exclude, np.nan, gr), settings.zoning, tops, bs_in=bs,
+        min_zone_m=settings.zone_min_m, min_step_api=settings.zone_step_api,
+    )
+    try:
+        picks = pick_endpoints(depth, gr, bounds, clean=settings.gr_clean, shale=settings.gr_shale,
+                               exclude=exclude, min_contrast=settings.min_contrast,
+                               source=source, names=names)
+        whole = pick_endpoints(depth, gr, [], clean=settings.gr_clean, shale=settings.gr_shale,
+                               exclude=exclude)
+    except SettingsError as exc:
+        raise SettingsError(f"{well.source}: {exc}") from None
+    clean_line = lines_per_sample(depth, picks, "gr_clean_api")
+    shale_line = lines_per_sample(depth, picks, "gr_shale_api")
+    vsh_gr = get_transform(settings.transform)(gamma_ray_index(gr, clean_line, shale_line))
+
+    vsh_nd = np.full(depth.size, np.nan)
+    nphi = _curve_in(well, "nphi", sl, neutron_v_v, notes)
+    rhob = _curve_in(well, "rhob", sl, density_g_cm3, notes)
+    flags["gas_crossover"] = np.zeros(depth.size, dtype=bool)
+    drho = _curve_in(well, "drho", sl, density_correction_g_cm3, notes)
+    flags["bad_density"] = (density_correction_flags(drho, settings.drho_max_g_cm3)
+                            if drho is not None else np.zeros(depth.size, dtype=bool))
+    if nphi is not None and rhob is not None and settings.vsh_combine != "gr":
+        phid = density_porosity(rhob)
+        sep = nphi - phid
+        nd_bad = flags["washout"] | flags["bad_density"]
+        picks["nd_shale_separation"] = nd_shale_separation(depth, gr, sep, picks,
+                                                           exclude=exclude | nd_bad)
+        sep_line = lines_per_sample(depth, picks, "nd_shale_separation")
+        usable = np.isfinite(sep_line) & ~nd_bad
+        for value in np.unique(sep_line[usable]):
+            m = usable & (sep_line == value)
+            vsh_nd[m] = vsh_neutron_density(nphi[m], phid[m], float(value))
+        flags["gas_crossover"] = gas_crossover(nphi, phid) & usable & np.isfinite(gr)
+        if not usable.any():
+            notes.append("neutron-density: no usable shale point; GR Vsh alone")
+    vsh = get_combination(settings.vsh_combine)(vsh_gr, vsh_nd)
+    return ClayVolume(
+        depth_m=depth, gr_api=gr_read, vsh_gr=vsh_gr, vsh_nd=vsh_nd, vsh=vsh, qc_flags=flags,
+        picks=picks, gr_clean_line=clean_line, gr_shale_line=shale_line,
+        gr_clean_api=float(whole["gr_clean_api"].iloc[0]),
+        gr_shale_api=float(whole["gr_shale_api"].iloc[0]), notes=tuple(notes),
+    )

@@ -1,0 +1,233 @@
+"""Seal capacity of the sand-sand windows: verdicts, fault-zone pressure and leak-point
+column heights over each window's contact, and fault-rock properties.
+
+:func:`seal_capacity_table` adds the seal-capacity columns to the windows of
+:func:`logprep.fault.juxtaposition.sand_windows`; the envelope, column and fluid functions
+it uses are in :mod:`logprep.fault.envelope` (method and references there).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+import pandas as pd
+
+from logprep.errors import SettingsError
+from logprep.fault import faultrock
+from logprep.fault.envelope import (
+    depth_datum,
+    CO2_DENSITY_MODES, ENVELOPE_CLASS_BOUNDS_M, ENVELOPE_CLASS_C, ENVELOPE_SGR_SCALE_PCT, FLUIDS,
+    co2_density_kgm3, envelope_c, fault_zone_pressure_bar, geothermal_temperature_k,
+    hydrostatic_pressure_pa, leak_point_column_m,
+)
+from logprep.fault.juxtaposition import cumulative_clay
+from logprep.model import Layers, WellLog
+from logprep.units import LENGTH_UNITS
+
+VERDICTS = ("leak", "uncertain", "seal")
+"""Screening verdict words, from the window's minimum SGR against two thresholds."""
+
+CAPACITY_COLUMNS = [
+    "burial_depth_m", "fzp_bar", "column_oil_m", "column_gas_m", "column_co2_m", "verdict",
+    "co2_density_kgm3", "fault_rock_throw_m", "fault_rock_thickness_m",
+    "fault_rock_perm_md", "fault_rock_perm_sperrevik_md", "trans_multiplier",
+    "fault_rock_outside_calibration",
+]
+"""Columns added to ``juxtapositions.csv`` (after the window columns), in order."""
+_TEXT_COLUMNS = ("verdict", "fault_rock_outside_calibration")
+
+
+# ----------------------------------------------------------------------------- windows
+@dataclass(frozen=True)
+class CapacityParams:
+    """Everything the seal-capacity step needs, in SI-ish units (m, kg/m3, %, mD)."""
+
+    rho_brine_kgm3: float = 1050.0
+    rho_oil_kgm3: float = 750.0
+    rho_gas_kgm3: float = 250.0
+    rho_co2_kgm3: float = 700.0
+    co2_density_mode: str = "fixed"
+    surface_temp_c: float = 10.0
+    geothermal_gradient_c_per_km: float = 30.0
+    max_burial_m: float | None = None
+    sgr_scale_pct: float = ENVELOPE_SGR_SCALE_PCT
+    class_bounds_m: tuple = ENVELOPE_CLASS_BOUNDS_M
+    class_c: tuple = ENVELOPE_CLASS_C
+    leak_below_pct: float = 15.0
+    seal_from_pct: float = 20.0
+    cell_length_m: float = 100.0
+    matrix_perm_md: float = 100.0
+    faulting_depth_m: float | None = None
+    n_throws: int = 61
+
+
+VERDICT_SGR_DECIMALS = 6
+"""SGR is compared with the verdict thresholds after rounding to this many decimals of a
+per cent (1e-6 %, far below any meaningful SGR difference and far above floating-point
+noise), so that a bed of Vsh 0.15, whose mean can come out as 14.999999999999996 %, is
+``uncertain`` at a 15 % leak threshold, not ``leak`` by rounding noise."""
+
+
+def verdict(sgr_min_pct, leak_below_pct: float, seal_from_pct: float) -> np.ndarray:
+    """``leak`` where SGR < ``leak_below_pct``, ``seal`` where SGR >= ``seal_from_pct``,
+    ``uncertain`` between.  About 15-20 % separates leaking from sealing faults in many
+    calibrations (Yielding et al. 1997; Yielding 2002); the thresholds are settings.
+    SGR is rounded to :data:`VERDICT_SGR_DECIMALS` before the comparison."""
+    s = np.round(np.asarray(sgr_min_pct, float), VERDICT_SGR_DECIMALS)
+    return np.where(s < leak_below_pct, VERDICTS[0], np.where(s >= seal_from_pct, VERDICTS[2], VERDICTS[1]))
+
+
+def window_throws(w, n: int = 61) -> np.ndarray:
+    """Throws (m) at which a window is evaluated: ``n`` evenly spaced from its minimum to
+    its maximum throw plus the throws where an end of the contact changes bed edge (the
+    corners of the contact area), so that extremes of SGR are met exactly.  Zero throw
+    is replaced by 1 mm (SGR is a limit there)."""
+    lo, hi = float(w["throw_min_m"]), float(w["throw_max_m"])
+    corners = [w["footwall_top_m"] - w["hangingwall_top_m"], w["footwall_base_m"] - w["hangingwall_base_m"]]
+    t = np.concatenate([np.linspace(lo, hi, n), [c for c in corners if lo < c < hi]])
+    return np.unique(np.maximum(t, min(1e-3, 0.5 * (hi - lo))))
+
+
+def contact_ends(w, throw_m):
+    """Top and base (m, footwall depth) of a window's contact at each throw, and the
+    hanging-wall depths facing them (``top - throw``, ``base - throw``, computed from the
+    bed edges so that they never stray outside the beds by rounding)."""
+    t = np.asarray(throw_m, float)
+    top_h = np.maximum(w["footwall_top_m"] - t, w["hangingwall_top_m"])
+    base_h = np.minimum(w["footwall_base_m"] - t, w["hangingwall_base_m"])
+    top = np.maximum(w["footwall_top_m"], w["hangingwall_top_m"] + t)
+    base = np.minimum(w["footwall_base_m"], w["hangingwall_base_m"] + t)
+    base, base_h = np.maximum(base, top), np.maximum(base_h, top_h)
+    return top, base, top_h, base_h
+
+
+def sgr_between_pct(layers: Layers, footwall_depth_m, hangingwall_depth_m):
+    """SGR (%) of the slipped interval between a hanging-wall depth and the footwall depth
+    facing it: ``100 (C(z) - C(z - t)) / t`` (Yielding et al. 1997), the same value as
+    :func:`logprep.fault.juxtaposition.sgr_layered_pct` at throw ``t = z_fw - z_hw`` but with the
+    two depths given, so a point on a bed edge stays on it."""
+    bounds, clay = cumulative_clay(layers)
+    z, zh = np.asarray(footwall_depth_m, float), np.asarray(hangingwall_depth_m, float)
+    return 100.0 * (np.interp(z, bounds, clay) - np.interp(zh, bounds, clay)) / (z - zh)
+
+
+def window_columns_m(layers: Layers, w, c: float, drho_kgm3, throw_m,
+                     sgr_scale_pct: float = ENVELOPE_SGR_SCALE_PCT) -> np.ndarray:
+    """Leak-point column (m) of a window at each throw for each density contrast:
+    shape ``(len(drho), len(throw))``.  SGR is exact at the contact ends (blocked layers)
+    and linear between them at a fixed throw."""
+    top, base, top_h, base_h = contact_ends(w, throw_m)
+    s_top = sgr_between_pct(layers, top, top_h)
+    s_base = sgr_between_pct(layers, base, base_h)
+    drho = np.atleast_1d(np.asarray(drho_kgm3, float))[:, None]
+    return leak_point_column_m(top, base, s_top, s_base, c, drho, sgr_scale_pct)
+
+
+def _shallowest_contact_m(w) -> float:
+    """Shallowest footwall depth (m, as logged) at which a window's sands touch: the
+    contact top at the window's smallest throw."""
+    return float(max(w["footwall_top_m"], w["hangingwall_top_m"] + w["throw_min_m"]))
+
+
+def _window_capacity(layers: Layers, w, p: CapacityParams, datum_m: float, co2_rho: float) -> dict:
+    t = window_throws(w, p.n_throws)
+    top, base, top_h, base_h = contact_ends(w, t)
+    shallow_m = _shallowest_contact_m(w) - datum_m
+    burial = p.max_burial_m if p.max_burial_m is not None else shallow_m
+    c = float(envelope_c(burial, p.class_bounds_m, p.class_c))
+    drho = [p.rho_brine_kgm3 - r for r in (p.rho_oil_kgm3, p.rho_gas_kgm3, co2_rho)]
+    cols = window_columns_m(layers, w, c, drho, t, p.sgr_scale_pct).min(axis=1)
+    # the fault rock at the window's lowest SGR (met at a contact end of a sampled throw)
+    # (ties, as for a sand against itself, go to the largest throw: a real fault's rock)
+    tt = np.concatenate([t, t])
+    s_ends = sgr_between_pct(layers, np.concatenate([top, base]), np.concatenate([top_h, base_h]))
+    lowest = s_ends <= np.nanmin(s_ends) + 1e-9
+    d_m = float(np.max(tt[lowest]))
+    sgr_frac = float(w["sgr_min_pct"]) / 100.0
+    tf = float(faultrock.fault_rock_thickness_m(d_m))
+    k_m = float(faultrock.manzocchi_permeability_md(sgr_frac, d_m))
+    z_f = p.faulting_depth_m if p.faulting_depth_m is not None else burial
+    k_s = float(faultrock.sperrevik_permeability_md(sgr_frac, burial, z_f))
+    tm = float(faultrock.transmissibility_multiplier(tf, k_m, p.matrix_perm_md, p.cell_length_m))
+    return {
+        "burial_depth_m": burial,
+        "fzp_bar": float(fault_zone_pressure_bar(w["sgr_min_pct"], burial, sgr_scale_pct=p.sgr_scale_pct,
+                                                 class_bounds_m=p.class_bounds_m, class_c=p.class_c)),
+        "column_oil_m": cols[0], "column_gas_m": cols[1], "column_co2_m": cols[2],
+        "verdict": str(verdict(w["sgr_min_pct"], p.leak_below_pct, p.seal_from_pct)),
+        "co2_density_kgm3": co2_rho,
+        "fault_rock_throw_m": d_m, "fault_rock_thickness_m": tf,
+        "fault_rock_perm_md": k_m, "fault_rock_perm_sperrevik_md": k_s,
+        "trans_multiplier": tm,
+        "fault_rock_outside_calibration": faultrock.calibration_note(
+            sgr_frac, d_m, burial, k_s, k_m, p.matrix_perm_md),
+    }
+
+
+def seal_capacity_table(windows: pd.DataFrame, layers: Layers, params: CapacityParams = CapacityParams(),
+                        *, datum_m: float = 0.0, length_unit: str = "m") -> pd.DataFrame:
+    """``windows`` with :data:`CAPACITY_COLUMNS` added (and ``column_*_ft`` when
+    ``length_unit`` is ``ft``).
+
+    Parameters
+    ----------
+    windows : DataFrame
+        From :func:`logprep.fault.juxtaposition.sand_windows`.
+    layers : Layers
+        The blocked column the windows come from (depths as logged, m).
+    params : CapacityParams
+        Densities, envelope, burial, thresholds and fault-rock inputs.
+    datum_m : float
+        Elevation of the depth reference above sea level (m); logged depth minus it is the
+        depth below sea level used for burial, pressure and temperature.  0 uses the depth
+        as logged.
+
+    Notes
+    -----
+    Per window: ``burial_depth_m`` is ``params.max_burial_m`` when given, otherwise the
+    depth below sea level of the shallowest contact point over the window (the
+    shallower class is the weaker envelope, so this errs on the side of leaking);
+    ``fzp_bar`` is the envelope at the window's minimum SGR; ``column_*_m`` are the
+    smallest leak-point columns over the window's throws (see :func:`window_columns_m`),
+    measured from the top of the contact; ``verdict`` compares the minimum SGR with the
+    thresholds.  The fault-rock columns are at the point of minimum SGR, with the throw
+    there as displacement (see :mod:`logprep.fault.faultrock`).
+    """
+    if length_unit not in LENGTH_UNITS:
+        raise SettingsError(f"unknown length unit {length_unit!r}; use one of {', '.join(LENGTH_UNITS)}")
+    out = windows.copy()
+    rows = []
+    for _, w in windows.iterrows():
+        rho = params.rho_co2_kgm3
+        if params.co2_density_mode == "eos":
+            z_ss = _shallowest_contact_m(w) - datum_m
+            p_pa = hydrostatic_pressure_pa(z_ss, params.rho_brine_kgm3)
+            t_k = geothermal_temperature_k(z_ss, params.surface_temp_c, params.geothermal_gradient_c_per_km)
+            rho = float(co2_density_kgm3(p_pa, t_k))
+        elif params.co2_density_mode != "fixed":
+            raise SettingsError(f"unknown CO2 density mode {params.co2_density_mode!r}; use one of {', '.join(CO2_DENSITY_MODES)}")
+        rows.append(_window_capacity(layers, w, params, datum_m, rho))
+    extra = pd.DataFrame(rows, columns=CAPACITY_COLUMNS, index=windows.index)
+    for col in CAPACITY_COLUMNS:
+        out[col] = extra[col] if len(windows) else pd.Series(dtype=object if col in _TEXT_COLUMNS else float)
+    if length_unit == "ft":
+        for fluid in FLUIDS:
+            out[f"column_{fluid}_ft"] = out[f"column_{fluid}_m"] / LENGTH_UNITS["ft"]
+    return out
+
+
+def seal_capacity_step(well: WellLog, layers: Layers, windows: pd.DataFrame, params: CapacityParams,
+                       length_unit: str = "m") -> tuple[pd.DataFrame, str]:
+    """Seal-capacity columns for the windows (see the functions above) and a note on
+    the depth datum used for burial, pressure and temperature."""
+    datum, source = depth_datum(well)
+    if params.max_burial_m is not None:
+        note = f"burial depth set to {params.max_burial_m:g} m (maximum burial setting)"
+    elif datum is None:
+        note = "burial depth = depth as logged (no elevation in the LAS header; set --max-burial)"
+    else:
+        note = f"burial depth = contact depth below sea level (logged depth - {source})"
+    table = seal_capacity_table(windows, layers, params, datum_m=datum or 0.0,
+                                length_unit=length_unit)
+    return table, note

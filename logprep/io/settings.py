@@ -1,0 +1,44 @@
+"""Settings of the input stage: which curve, which depth unit, and the side inputs (tops,
+deviation surveys) of a screening run."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from logprep.errors import SettingsError, require_finite_fields
+from logprep.io.las import DEPTH_UNITS_M
+
+
+@dataclass(frozen=True)
+class InputSettings:
+    """How wells and their side inputs are read.
+
+    Attributes
+    ----------
+    gr_curve : str or None
+        Gamma-ray mnemonic to use instead of the alias search.
+    depth_unit : str or None
+        Depth unit to assume when a file does not state one (``m`` or ``ft``).
+    tops_file : str or None
+        Formation tops (CSV ``well, top_m, name``, a markers file, or a folder of them);
+        the picks of each well are matched by well name or file stem.
+    survey_dir : str or None
+        Folder of deviation surveys, ``<well name or file stem>.csv`` (MD, inclination,
+        azimuth; see :mod:`logprep.io.survey`).  A well with a survey is screened on TVD by
+        minimum curvature; a well without one is taken as vertical.
+    bed_dip_deg : float
+        Bed dip (degrees) for the true stratigraphic thickness ``tst_m`` in ``layers.csv``.
+    """
+
+    gr_curve: str | None = None
+    depth_unit: str | None = None
+    tops_file: str | None = None
+    survey_dir: str | None = None
+    bed_dip_deg: float = 0.0
+
+    def __post_init__(self) -> None:
+        require_finite_fields(self)
+        if self.depth_unit is not None and self.depth_unit.strip().upper() not in DEPTH_UNITS_M:
+            raise SettingsError(f"unknown depth unit {self.depth_unit!r}; use m or ft")
+        if not 0 <= self.bed_dip_deg < 90:
+            raise SettingsError(f"--bed-dip must lie within 0 and 90 degrees (got {self.bed_dip_deg:g})")

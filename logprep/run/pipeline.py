@@ -1,0 +1,137 @@
+"""One well from file to results, in the order of the stages: the Python API that the CLI,
+batches and notebooks call.
+
+read (io) -> tops and TVD (io) -> clay volume (clay) -> gaps filled and blocked (layers)
+-> windows, SGR field, smear, seal capacity (fault) -> :class:`WellScreening`.
+
+>>> from logprep import ScreenSettings, screen_file                   # doctest: +SKIP
+>>> result = screen_file("A-1.las", ScreenSettings(sand_cutoff=0.3))  # doctest: +SKIP
+>>> result.windows                                                    # doctest: +SKIP
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from pathlib import Path
+
+import numpy as np
+import pandas as pd
+
+from logprep.clay.endpoints import PICK_COLUMNS
+from logprep.clay.stage import clay_volume
+from logprep.fault.capacity import seal_capacity_step
+from logprep.fault.settings import capacity_params
+from logprep.fault.sgr import SgrField, sgr_field
+from logprep.fault.smear import window_smear, with_smear_fields
+from logprep.fault.juxtaposition import sand_windows
+from logprep.io.las import read_well
+from logprep.io.survey import deviated_well
+from logprep.io.tops import TOPS_COLUMNS, well_tops
+from logprep.layers.blocking import block_with_boundaries, fill_gaps
+from logprep.model import Layers, WellLog
+from logprep.run.settings import ScreenSettings
+
+__all__ = ["ScreenSettings", "WellScreening", "screen_file", "screen_well"]
+
+
+@dataclass(frozen=True)
+class WellScreening:
+    """Everything computed for one well.
+
+    ``depth_m``/``gr_api``/``vsh`` cover the screened interval (first to last valid GR);
+    ``gr_api`` is the GR as read; ``filled`` marks samples whose Vsh was interpolated (GR
+    missing, or replaced after QC).  ``vsh_gr`` and ``vsh_nd`` are the two estimates
+    before combination (``vsh_nd`` NaN without neutron and density logs); ``qc_flags``
+    holds the boolean flags of :data:`logprep.clay.qc.QC_FLAGS`; ``picks`` the endpoint picks
+    per zone (``picks.csv``); ``gr_clean_line``/``gr_shale_line`` the lines per sample.
+    ``gr_clean_api``/``gr_shale_api`` are the whole-well lines, for reference.
+    """
+
+    well: WellLog
+    settings: ScreenSettings
+    depth_m: np.ndarray
+    gr_api: np.ndarray
+    vsh: np.ndarray
+    filled: np.ndarray
+    gr_clean_api: float
+    gr_shale_api: float
+    layers: Layers
+    windows: pd.DataFrame
+    tops: pd.DataFrame = field(default_factory=lambda: pd.DataFrame(columns=TOPS_COLUMNS))
+    notes: tuple[str, ...] = field(default_factory=tuple)
+    vsh_gr: np.ndarray | None = None
+    vsh_nd: np.ndarray | None = None
+    qc_flags: dict = field(default_factory=dict)
+    picks: pd.DataFrame = field(default_factory=lambda: pd.DataFrame(columns=PICK_COLUMNS))
+    gr_clean_line: np.ndarray | None = None
+    gr_shale_line: np.ndarray | None = None
+    grid: SgrField | None = None
+    depth_reference: str = "as logged"
+
+    @property
+    def min_window_sgr_pct(self) -> float:
+        """Lowest SGR over all sand-sand windows that are not a sand against itself
+        (NaN when there are none)."""
+        w = self.windows[~self.windows["self_juxtaposed"]]
+        return float(w["sgr_min_pct"].min()) if len(w) else float("nan")
+
+
+def screen_well(
+    well: WellLog,
+    settings: ScreenSettings = ScreenSettings(),
+    *,
+    tops: pd.DataFrame | None = None,
+) -> WellScreening:
+    """Run the screening science on a well already read.
+
+    ``tops`` is a tops table for any number of wells (see :mod:`logprep.io.tops`); when it
+    is None and ``settings.input.tops_file`` is set, that file is read.
+    """
+    inp, lay, fld = settings.input, settings.layers, settings.field
+    picks = well_tops(well, inp.tops_file, tops)
+    well, picks, depth_ref, survey_note = deviated_well(well, inp.survey_dir, picks)
+    cv = clay_volume(well, settings.clay, picks)
+    depth = cv.depth_m
+    notes = list(cv.notes) + ([survey_note] if survey_note else [])
+    vsh, filled = fill_gaps(depth, cv.vsh, extend_ends=True)
+    if filled.any():
+        notes.append(
+            f"{int(filled.sum())} GR samples missing or replaced after QC; Vsh interpolated there"
+        )
+    forced = picks["top_m"].to_numpy(float) if lay.honour_tops else ()
+    if lay.honour_tops and len(picks) == 0:
+        notes.append("no formation tops for this well; layers not tied to tops")
+    layers = block_with_boundaries(
+        lay.blocking, depth, vsh, forced, filled=filled, **lay.blocking_kwargs()
+    )
+    windows = sand_windows(layers, fld.throw_max_m)
+    sgr = sgr_field(
+        layers, depth, vsh, throw_max_m=fld.throw_max_m,
+        throw_step_m=fld.field_throw_step_m, depth_step_m=fld.field_depth_step_m,
+        source=fld.sgr_field_source,
+    )
+    sgr = with_smear_fields(sgr, layers)
+    windows, note = seal_capacity_step(well, layers, windows,
+                                       capacity_params(settings.capacity, settings.fault_rock),
+                                       settings.capacity.length_unit)
+    notes.append(note)
+    windows = windows.join(window_smear(layers, windows, fld.throw_max_m))
+    return WellScreening(
+        well=well, settings=settings, depth_m=depth, gr_api=cv.gr_api, vsh=vsh, filled=filled,
+        gr_clean_api=cv.gr_clean_api, gr_shale_api=cv.gr_shale_api, layers=layers,
+        windows=windows, tops=picks, notes=tuple(notes), vsh_gr=cv.vsh_gr, vsh_nd=cv.vsh_nd,
+        qc_flags=cv.qc_flags, picks=cv.picks, gr_clean_line=cv.gr_clean_line,
+        gr_shale_line=cv.gr_shale_line, grid=sgr,
+        depth_reference=depth_ref,
+    )
+
+
+def screen_file(
+    path: str | Path,
+    settings: ScreenSettings = ScreenSettings(),
+    *,
+    tops: pd.DataFrame | None = None,
+) -> WellScreening:
+    """Read a LAS file and screen it (``tops`` as in :func:`screen_well`)."""
+    well = read_well(path, gr_curve=settings.input.gr_curve, depth_unit=settings.input.depth_unit)
+    return screen_well(well, settings, tops=tops)
