@@ -63,6 +63,15 @@ def _fault_options(p: argparse.ArgumentParser, d) -> None:
                         f"(default: {d.field.field_depth_step_m})")
     g.add_argument("--field-throw-step", dest="field_throw_step_m", type=float, metavar="M",
                    help=f"throw spacing of the SGR field in metres (default: {d.field.field_throw_step_m})")
+    g.add_argument("--shale-clay-fraction", dest="shale_clay_fraction", type=float, metavar="FRACTION",
+                   help="clay fraction of pure shale: SGR, smear and fault rock use this x Vsh "
+                        f"(default: {d.field.shale_clay_fraction:g}, Vsh taken as clay)")
+    g.add_argument("--heterolith-reservoir-ntg", dest="heterolith_reservoir_ntg", type=float,
+                   metavar="FRACTION", help="also screen heteroliths with at least this net-to-gross "
+                                            "as reservoir (default: sands only)")
+    g.add_argument("--fault-dip", dest="fault_dip_deg", type=float, metavar="DEG",
+                   help="fault dip: displacement = throw / sin(dip) for fault rock, CSP along the "
+                        f"fault (default: {d.field.fault_dip_deg:g})")
 
 
 def _capacity_options(p: argparse.ArgumentParser, d) -> None:
@@ -105,6 +114,24 @@ def _capacity_options(p: argparse.ArgumentParser, d) -> None:
                    help=f"cell length for the transmissibility multiplier (default: {d.fault_rock.cell_length_m:g})")
     g.add_argument("--matrix-perm", dest="matrix_perm_md", type=float, metavar="MD",
                    help=f"matrix permeability for the transmissibility multiplier (default: {d.fault_rock.matrix_perm_md:g})")
+    g.add_argument("--water-depth", dest="water_depth_m", type=float, metavar="M",
+                   help="water depth: burial is measured below the sea floor (default: from the "
+                        "LAS header, else the surface at sea level)")
+    g.add_argument("--ground-elevation", dest="ground_elevation_m", type=float, metavar="M",
+                   help="ground elevation above sea level onshore (default: EGL from the header)")
+    g.add_argument("--uplift", dest="uplift_m", type=float, metavar="M",
+                   help=f"section removed since maximum burial, added to burial (default: {d.capacity.uplift_m:g})")
+    g.add_argument("--closure", dest="closure_m", type=float, metavar="M",
+                   help="structural closure that caps every column (default: none; columns over "
+                        f"{d.capacity.unconstrained_column_m:g} m flagged unconstrained)")
+    g.add_argument("--unconstrained-column", dest="unconstrained_column_m", type=float, metavar="M",
+                   help=f"column flagged unconstrained without a closure (default: {d.capacity.unconstrained_column_m:g})")
+    for opt, dest, unit in (("--calibration-ift", "calibration_ift_mn_m", "MN/M"),
+                            ("--calibration-contact-angle", "calibration_contact_deg", "DEG"),
+                            ("--co2-ift", "co2_ift_mn_m", "MN/M"),
+                            ("--co2-contact-angle", "co2_contact_deg", "DEG")):
+        g.add_argument(opt, dest=dest, type=float, metavar=unit,
+                       help=f"for the CO2-brine capillary pressure (default: {getattr(d.capacity, dest):g})")
     g.add_argument("--faulting-depth", dest="faulting_depth_m", type=float, metavar="M",
                    help="depth at the time of faulting, for the Sperrevik permeability (default: burial depth)")
 
@@ -143,6 +170,9 @@ def _survey_options(p: argparse.ArgumentParser, d) -> None:
     g.add_argument("--bed-dip", dest="bed_dip_deg", type=float, metavar="DEG",
                    help="bed dip in degrees for the true stratigraphic thickness tst_m in "
                         f"layers.csv (default: {d.input.bed_dip_deg})")
+    g.add_argument("--bed-dip-azimuth", dest="bed_dip_azimuth_deg", type=float, metavar="DEG",
+                   help="direction of that dip, degrees from north; with a survey, tst_m follows "
+                        f"the well's direction against it (default: {d.input.bed_dip_azimuth_deg})")
 
 
 def _pair_options(p: argparse.ArgumentParser, d) -> None:

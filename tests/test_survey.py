@@ -163,3 +163,18 @@ def test_unmatched_surveys_are_named(tmp_path):
     assert [p.name for p in unmatched_surveys(tmp_path, ["HRM-4", "HRM 5"])] == ["HRM-44.csv"]
     (msg,) = unmatched_survey_warnings(tmp_path, ["HRM-4", "HRM 5"])
     assert "HRM-44.csv: survey matches no well" in msg and "\n" not in msg
+
+
+def test_layer_tst_from_tvd_bounds_along_the_survey():
+    # The layer between the TVDs of 1100 and 1110 m MD on the 30 deg slant above is the
+    # hand-worked 6.4279 m thick down-dip; without a survey (vertical well) its TST is
+    # TVT cos 20 whatever the azimuth.
+    from logprep.io.survey import layer_tst_m, md_at_tvd
+
+    md, inc, azi = np.array([0.0, 1000.0, 1050.0, 2000.0]), np.array([0.0, 0.0, 30.0, 30.0]), np.full(4, 90.0)
+    tvd = tvd_at_md(np.array([1100.0, 1110.0]), md, inc, azi)
+    np.testing.assert_allclose(md_at_tvd(tvd, md, inc, azi), [1100.0, 1110.0], atol=1e-5)
+    assert float(layer_tst_m(tvd[0], tvd[1], 20.0, 90.0, (md, inc, azi))) == pytest.approx(6.4279, abs=1e-4)
+    assert float(layer_tst_m(tvd[0], tvd[1], 20.0, 270.0, (md, inc, azi))) == pytest.approx(9.8481, abs=1e-4)
+    tvt = tvd[1] - tvd[0]
+    assert float(layer_tst_m(tvd[0], tvd[1], 20.0, 45.0)) == pytest.approx(tvt * np.cos(np.radians(20.0)))

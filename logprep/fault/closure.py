@@ -12,7 +12,9 @@ says which limited it (:data:`LIMITS`):
     the structural closure given with ``--closure``;
 ``leak``
     the window's minimum SGR is below the leak threshold: the pressure envelope is not
-    meant to apply to such a fault (it leaks), so no sealing column is reported (0 m).
+    meant to apply to such a fault (it leaks), so no sealing column is reported (0 m);
+``self``
+    a sand against itself: no fault seal at all (0 m).
 
 Without a closure, a window whose column exceeds ``unconstrained_column_m`` (default
 :data:`UNCONSTRAINED_COLUMN_M`) is flagged ``column_unconstrained``: the number is what the
@@ -27,7 +29,7 @@ import pandas as pd
 
 from logprep.errors import SettingsError
 
-LIMITS = ("fault rock", "closure", "leak")
+LIMITS = ("fault rock", "closure", "leak", "self")
 UNCONSTRAINED_COLUMN_M = 1000.0
 """Column (m) above which a column without a closure is flagged unconstrained."""
 FLUIDS = ("oil", "gas", "co2")
@@ -64,18 +66,21 @@ def capped_column_m(column_m, closure_m: float | None, leaks) -> tuple[np.ndarra
 
 def with_closure(table: pd.DataFrame, closure_m: float | None = None, *,
                  unconstrained_column_m: float = UNCONSTRAINED_COLUMN_M,
-                 leak_word: str = "leak") -> pd.DataFrame:
+                 no_seal=("leak", "self")) -> pd.DataFrame:
     """The seal-capacity table with columns capped by the closure, the limit of each fluid
     column and the ``column_unconstrained`` flag (:data:`CLOSURE_COLUMNS`).  Windows whose
-    ``verdict`` is ``leak_word`` hold no sealing column."""
+    ``verdict`` is one of ``no_seal`` (a leaking fault, a sand against itself) hold no
+    sealing column: 0 m, with the verdict word as the limit."""
     check_closure(closure_m, unconstrained_column_m)
     out = table.copy()
-    leaks = (out["verdict"] == leak_word).to_numpy(bool) if len(out) else np.zeros(0, bool)
+    verdicts = out["verdict"].astype(str).to_numpy() if len(out) else np.zeros(0, dtype=object)
+    leaks = np.isin(verdicts, list(no_seal))
     longest = np.zeros(len(out))
     for fluid in FLUIDS:
         raw = out[f"column_{fluid}_m"].to_numpy(float)
         longest = np.maximum(longest, np.where(leaks, 0.0, raw))
         col, limit = capped_column_m(raw, closure_m, leaks)
+        limit[leaks] = verdicts[leaks]
         out[f"column_{fluid}_m"] = col
         out[f"column_{fluid}_limit"] = pd.Series(list(limit), index=out.index, dtype=object)
         if f"column_{fluid}_ft" in out:

@@ -229,21 +229,54 @@ def well_to_tvd(well, md_m, inc_deg, azi_deg, survey_path: str | Path):
     return replace(well, depth_m=tvd)
 
 
-def deviated_well(well: WellLog, survey_dir: str | None, picks: pd.DataFrame):
+def deviated_well(well: WellLog, survey_dir: str | None, picks: pd.DataFrame, *,
+                  with_survey: bool = False):
     """The well (and its tops) on TVD when ``survey_dir`` holds a survey for it.
 
     Returns ``(well, picks, depth_reference, note)``; unchanged with reference
     ``"as logged"`` and no note for a well without a survey (taken as vertical).
+    ``with_survey`` adds a fifth item, the survey ``(md_m, inc_deg, azi_deg)`` or None.
     """
+    def out(*items, survey=None):
+        return (*items, survey) if with_survey else items
+
     if not survey_dir:
-        return well, picks, "as logged", None
+        return out(well, picks, "as logged", None)
     path = find_survey(survey_dir, well.name, Path(well.source).stem)
     if path is None:
-        return well, picks, "as logged", None
+        return out(well, picks, "as logged", None)
     md, inc, azi = read_survey(path)
     tvd_well = well_to_tvd(well, md, inc, azi, path)
     if len(picks):
         picks = picks.assign(top_m=tvd_at_md(picks["top_m"].to_numpy(float), md, inc, azi))
-    return (tvd_well, picks, "TVD",
-            f"depth axis is TVD below the log's depth reference, from survey {path.name} "
-            f"(minimum curvature; max inclination {inc.max():.1f} deg); tops converted too")
+    return out(tvd_well, picks, "TVD",
+               f"depth axis is TVD below the log's depth reference, from survey {path.name} "
+               f"(minimum curvature; max inclination {inc.max():.1f} deg); tops converted too",
+               survey=(md, inc, azi))
+
+
+def md_at_tvd(tvd_query_m, md_m, inc_deg, azi_deg, step_m: float = 0.05) -> np.ndarray:
+    """Measured depth (m) at true vertical depths, by inverting :func:`tvd_at_md` on a
+    grid of ``step_m`` along the hole (TVD must increase along it, as screening requires;
+    the error is second order in the step, far below a millimetre)."""
+    q = np.asarray(tvd_query_m, float)
+    lo = float(min(np.min(q), md_m[0]))  # MD >= TVD, so the grid starts high enough
+    hi = float(max(np.max(q), md_m[-1]))
+    while float(tvd_at_md(hi, md_m, inc_deg, azi_deg)) < float(np.max(q)):
+        hi = 2.0 * hi - lo + 1.0
+    grid = np.linspace(lo, hi, int(np.ceil((hi - lo) / step_m)) + 2)
+    tvd = tvd_at_md(grid, md_m, inc_deg, azi_deg)
+    return np.interp(q, tvd, grid)
+
+
+def layer_tst_m(top_m, base_m, bed_dip_deg: float, dip_azimuth_deg: float = 0.0, survey=None):
+    """True stratigraphic thickness (m) of layers ``[top_m, base_m]`` (TVD with a survey,
+    else depth as logged, taken as vertical): ``TVT cos(dip)`` for a vertical well; along
+    the surveyed path (:func:`stratigraphic_thickness_along_path_m`) when ``survey`` is
+    ``(md_m, inc_deg, azi_deg)``, which honours the well's direction against the dip."""
+    top, base = np.asarray(top_m, float), np.asarray(base_m, float)
+    if survey is None:
+        return true_stratigraphic_thickness_m(base - top, bed_dip_deg)
+    md, inc, azi = survey
+    md_top, md_base = md_at_tvd(top, md, inc, azi), md_at_tvd(base, md, inc, azi)
+    return stratigraphic_thickness_along_path_m(md_top, md_base, md, inc, azi, bed_dip_deg, dip_azimuth_deg)

@@ -19,11 +19,8 @@ import pandas as pd
 
 from logprep.clay.endpoints import PICK_COLUMNS
 from logprep.clay.stage import clay_volume
-from logprep.fault.capacity import seal_capacity_step
-from logprep.fault.settings import capacity_params
-from logprep.fault.sgr import SgrField, sgr_field
-from logprep.fault.smear import window_smear, with_smear_fields
-from logprep.fault.juxtaposition import sand_windows
+from logprep.fault.sgr import SgrField
+from logprep.fault.stage import fault_stage
 from logprep.io.las import read_well
 from logprep.io.survey import deviated_well
 from logprep.io.tops import TOPS_COLUMNS, well_tops
@@ -45,6 +42,8 @@ class WellScreening:
     holds the boolean flags of :data:`logprep.clay.qc.QC_FLAGS`; ``picks`` the endpoint picks
     per zone (``picks.csv``); ``gr_clean_line``/``gr_shale_line`` the lines per sample.
     ``gr_clean_api``/``gr_shale_api`` are the whole-well lines, for reference.
+    ``survey`` is the deviation survey ``(md_m, inc_deg, azi_deg)`` the depths were put on
+    TVD with (None for a well taken as vertical).
     """
 
     well: WellLog
@@ -67,6 +66,7 @@ class WellScreening:
     gr_shale_line: np.ndarray | None = None
     grid: SgrField | None = None
     depth_reference: str = "as logged"
+    survey: tuple | None = None
 
     @property
     def min_window_sgr_pct(self) -> float:
@@ -89,7 +89,7 @@ def screen_well(
     """
     inp, lay, fld = settings.input, settings.layers, settings.field
     picks = well_tops(well, inp.tops_file, tops)
-    well, picks, depth_ref, survey_note = deviated_well(well, inp.survey_dir, picks)
+    well, picks, depth_ref, survey_note, survey = deviated_well(well, inp.survey_dir, picks, with_survey=True)
     cv = clay_volume(well, settings.clay, picks)
     depth = cv.depth_m
     notes = list(cv.notes) + ([survey_note] if survey_note else [])
@@ -104,25 +104,16 @@ def screen_well(
     layers = block_with_boundaries(
         lay.blocking, depth, vsh, forced, filled=filled, **lay.blocking_kwargs()
     )
-    windows = sand_windows(layers, fld.throw_max_m)
-    sgr = sgr_field(
-        layers, depth, vsh, throw_max_m=fld.throw_max_m,
-        throw_step_m=fld.field_throw_step_m, depth_step_m=fld.field_depth_step_m,
-        source=fld.sgr_field_source,
-    )
-    sgr = with_smear_fields(sgr, layers)
-    windows, note = seal_capacity_step(well, layers, windows,
-                                       capacity_params(settings.capacity, settings.fault_rock),
-                                       settings.capacity.length_unit)
-    notes.append(note)
-    windows = windows.join(window_smear(layers, windows, fld.throw_max_m))
+    windows, sgr, fault_notes = fault_stage(well, layers, depth, vsh, fld, settings.capacity,
+                                            settings.fault_rock, inp.bed_dip_deg)
+    notes.extend(fault_notes)
     return WellScreening(
         well=well, settings=settings, depth_m=depth, gr_api=cv.gr_api, vsh=vsh, filled=filled,
         gr_clean_api=cv.gr_clean_api, gr_shale_api=cv.gr_shale_api, layers=layers,
         windows=windows, tops=picks, notes=tuple(notes), vsh_gr=cv.vsh_gr, vsh_nd=cv.vsh_nd,
         qc_flags=cv.qc_flags, picks=cv.picks, gr_clean_line=cv.gr_clean_line,
         gr_shale_line=cv.gr_shale_line, grid=sgr,
-        depth_reference=depth_ref,
+        depth_reference=depth_ref, survey=survey,
     )
 
 
