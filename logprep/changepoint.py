@@ -9,6 +9,10 @@ import numpy as np
 from logprep.errors import SettingsError
 
 
+_PELT_CELLS = 1 << 20
+"""Cells (ends x starts) of one block step of :func:`pelt_mean_breaks` (memory bound)."""
+
+
 def pelt_mean_breaks(x, penalty: float, min_size: int = 1) -> np.ndarray:
     """Optimal partition of ``x`` into segments of constant mean (least squares), with a
     cost ``penalty`` per change and at least ``min_size`` samples per segment.
@@ -59,24 +63,45 @@ def pelt_mean_breaks(x, penalty: float, min_size: int = 1) -> np.ndarray:
     best = np.full(n + 1, np.inf)
     best[0] = -penalty
     last = np.zeros(n + 1, dtype=np.intp)
-    cand = np.zeros(0, dtype=np.intp)      # admissible starts
+    cand = np.zeros(0, dtype=np.intp)      # admissible starts, increasing
     drop_at = np.zeros(0, dtype=np.intp)   # when each is dropped (n + 1: not yet)
-    for t in range(min_size, n + 1):
-        s_new = t - min_size
-        if np.isfinite(best[s_new]):
-            cand = np.append(cand, s_new)
-            drop_at = np.append(drop_at, n + 1)
-        keep = drop_at > t
-        cand, drop_at = cand[keep], drop_at[keep]
-        m = t - cand
-        cost = (s2[t] - s2[cand]) - (s1[t] - s1[cand]) ** 2 / m
-        cost = np.maximum(cost, 0.0)
-        total = best[cand] + cost
-        k = int(np.argmin(total))
-        best[t] = total[k] + penalty
-        last[t] = cand[k]
-        dominated = (total > best[t]) & (drop_at > n)
-        drop_at[dominated] = t + min_size
+    # Ends t are taken in blocks of at most min_size: every start a block's ends can use
+    # (s <= t - min_size) is then known before the block, and a start pruned inside the
+    # block is dropped only from t + min_size on, after the block.  So one 2-D step per
+    # block gives the same values, minima and pruning as one step per end.
+    t0 = min_size
+    while t0 <= n:
+        width = max(1, min(min_size, _PELT_CELLS // (cand.size + min_size)))
+        t1 = min(t0 + width, n + 1)          # ends t0 .. t1 - 1
+        new = np.arange(t0 - min_size, t1 - min_size)
+        new = new[np.isfinite(best[new])]
+        cand = np.concatenate((cand[drop_at > t0], new))
+        drop_at = np.concatenate((drop_at[drop_at > t0], np.full(new.size, n + 1, dtype=np.intp)))
+        ts = np.arange(t0, t1)
+        mf = ts.astype(float)[:, None] - cand.astype(float)[None, :]  # exact: small ints
+        cost = s1[ts][:, None] - s1[cand][None, :]
+        np.square(cost, out=cost)
+        np.divide(cost, mf, out=cost)
+        np.subtract(s2[ts][:, None] - s2[cand][None, :], cost, out=cost)
+        np.maximum(cost, 0.0, out=cost)
+        total = np.add(best[cand][None, :], cost, out=cost)
+        # a start is usable for end t once t >= s + min_size (only the new starts can be
+        # too recent) and until it is dropped (only starts dropped before t1 matter)
+        fresh = slice(cand.size - new.size, cand.size)
+        young = mf[:, fresh] < min_size
+        total[:, fresh][young] = np.inf
+        gone = np.flatnonzero(drop_at < t1)
+        for j in gone.tolist():
+            total[ts >= drop_at[j], j] = np.inf
+        k = np.argmin(total, axis=1)
+        best[ts] = total[np.arange(ts.size), k] + penalty
+        last[ts] = cand[k]
+        dominated = np.greater(total, best[ts][:, None])
+        dominated[:, fresh] &= ~young
+        dominated[:, drop_at <= n] = False  # only starts not yet marked for dropping
+        hit = np.flatnonzero(dominated.any(axis=0))
+        drop_at[hit] = ts[np.argmax(dominated[:, hit], axis=0)] + min_size
+        t0 = t1
     breaks = []
     t = n
     while t > 0:

@@ -7,15 +7,15 @@ import sys
 import warnings
 
 from logprep import __version__
-from logprep.layers.blocking import BLOCKING_METHODS
 from logprep.errors import LogprepError
-from logprep.fault.sgr import SGR_FIELD_SOURCES
-from logprep.clay.vshale import TRANSFORMS
+
+# the science is imported only where a command or its options need it (fast --version)
 
 EXIT_OK, EXIT_SOME_FAILED, EXIT_USAGE = 0, 1, 2
 
 
 def _clay_options(p: argparse.ArgumentParser, d) -> None:
+    from logprep.clay.vshale import TRANSFORMS
     g = p.add_argument_group("clay volume")
     g.add_argument("--transform", dest="transform", choices=list(TRANSFORMS),
                    help=f"IGR to Vsh transform (default: {d.clay.transform})")
@@ -32,6 +32,7 @@ def _clay_options(p: argparse.ArgumentParser, d) -> None:
 
 
 def _blocking_options(p: argparse.ArgumentParser, d) -> None:
+    from logprep.layers.blocking import BLOCKING_METHODS
     g = p.add_argument_group("blocking")
     g.add_argument("--blocking", dest="blocking", choices=list(BLOCKING_METHODS),
                    help=f"blocking method (default: {d.layers.blocking})")
@@ -49,6 +50,7 @@ def _blocking_options(p: argparse.ArgumentParser, d) -> None:
 
 
 def _fault_options(p: argparse.ArgumentParser, d) -> None:
+    from logprep.fault.sgr import SGR_FIELD_SOURCES
     g = p.add_argument_group("fault")
     g.add_argument("--throw-max", dest="throw_max_m", type=float, metavar="M",
                    help=f"largest throw screened, metres (default: {d.field.throw_max_m})")
@@ -227,6 +229,13 @@ def _add_config_option(p: argparse.ArgumentParser) -> None:
                         "it used to logprep-settings.toml in its output folder")
 
 
+def _add_locations_option(p: argparse.ArgumentParser) -> None:
+    p.add_argument("--locations", metavar="FILE",
+                   help="well locations for the overview map: CSV of well and x, y (or "
+                        "latitude, longitude); default: the LAS header items (LATI/LONG, "
+                        "X/Y, or X and Y in LOC)")
+
+
 def _progress(stream):
     """A progress bar on stderr only when it is a terminal (tqdm if installed)."""
     if not stream.isatty():
@@ -262,6 +271,10 @@ def cmd_screen(args) -> int:
         from logprep.run.pairs import read_pairs
 
         read_pairs(args.pairs)  # a bad pairs file is a usage error, found before the wells run
+    if args.locations:
+        from logprep.io.locations import read_locations
+
+        read_locations(args.locations)  # likewise a bad locations file
     report = screen_paths(
         paths, args.out, settings,
         on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
@@ -285,7 +298,25 @@ def cmd_screen(args) -> int:
         print(f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed; "
               f"summary {args.out}/pairs_summary.csv")
         failed = failed or bad > 0
+    from logprep.report.overview_files import write_overview
+
+    written = write_overview(args.out, args.locations)
+    print(f"field overview {written['overview.html']} (open in a browser) and {written['overview.pdf']}")
     return EXIT_SOME_FAILED if failed else EXIT_OK
+
+
+def cmd_overview(args) -> int:
+    from pathlib import Path
+
+    from logprep.report.overview_files import write_overview
+
+    out = Path(args.out_dir)
+    if not (out / "summary.csv").is_file() and not (out / "pairs_summary.csv").is_file():
+        raise LogprepError(f"{out}: no summary.csv or pairs_summary.csv; give the --out folder "
+                           "of a 'logprep screen' run")
+    written = write_overview(out, args.locations)
+    print(f"field overview {written['overview.html']} and {written['overview.pdf']}")
+    return EXIT_OK
 
 
 def cmd_tune(args) -> int:
@@ -343,8 +374,18 @@ def build_parser() -> argparse.ArgumentParser:
     p.add_argument("--pairs", metavar="FILE",
                    help="also screen well pairs across a fault: CSV of footwall, hangingwall and "
                         "marker (a top in both wells, needs --tops) or shift_m; one folder per pair")
+    _add_locations_option(p)
     _add_screen_options(p)
     p.set_defaults(func=cmd_screen)
+
+    p = sub.add_parser(
+        "overview", help="remake overview.html and overview.pdf of a screening output folder",
+        description="Remake the field overview (overview.html, overview.pdf) from what a "
+                    "'logprep screen' run left in its output folder.",
+    )
+    p.add_argument("out_dir", metavar="DIR", help="the --out folder of a screening run")
+    _add_locations_option(p)
+    p.set_defaults(func=cmd_overview)
 
     p = sub.add_parser(
         "tune", help="sweep the blocking cut-offs of one well and show where verdicts flip",
@@ -370,7 +411,23 @@ def build_parser() -> argparse.ArgumentParser:
     return parser
 
 
+def _asks_version(argv: list[str]) -> bool:
+    """True when ``--version`` comes before any command or help option, where argparse
+    would print the version and stop: answered without building the parser (whose
+    options need the science's registries)."""
+    for token in argv:
+        if token == "--version":
+            return True
+        if token in ("-h", "--help") or not token.startswith("-"):
+            return False
+    return False
+
+
 def main(argv: list[str] | None = None) -> int:
+    argv = sys.argv[1:] if argv is None else list(argv)
+    if _asks_version(argv):
+        print(f"logprep {__version__}")
+        return EXIT_OK
     parser = build_parser()
     args = parser.parse_args(argv)
     if not getattr(args, "func", None):

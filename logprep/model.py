@@ -19,6 +19,12 @@ LITHOLOGIES = ("sand", "heterolith", "shale")
 
 
 def _frozen(a) -> np.ndarray:
+    """A read-only float array of ``a``: a copy, unless ``a`` is already a read-only
+    float64 array that owns its memory (a reader's own column, or an array of another
+    frozen object), which nothing else can change, so it is shared instead of copied."""
+    if isinstance(a, np.ndarray) and a.dtype == np.float64 and a.base is None \
+            and not a.flags.writeable:
+        return a
     arr = np.array(a, dtype=float, copy=True)
     arr.setflags(write=False)
     return arr

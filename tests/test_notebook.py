@@ -1,6 +1,9 @@
 """The tuning notebook runs headless from top to bottom and writes a settings file that
-`logprep screen --config` accepts."""
+`logprep screen --config` accepts; it takes the user's own well from LOGPREP_WELL without
+code edits, a slider redraws only the blocking panel (not the logs), and sliders fire only
+on release (no queue of redraws while dragging)."""
 
+import shutil
 from pathlib import Path
 
 import pytest
@@ -10,19 +13,51 @@ from logprep.run.settings import ScreenSettings
 
 NOTEBOOK = Path(__file__).resolve().parents[1] / "notebooks" / "tune_blocking.ipynb"
 
+CHECKS = '''
+assert all(not w.continuous_update for w in (sand, shale, bed))
+logs_before, blocks_before = draws["logs"], draws["blocks"]
+sand.value = 0.30  # what releasing the slider does
+assert draws["logs"] == logs_before and draws["blocks"] == blocks_before + 1
+assert current.settings.layers.sand_cutoff == 0.30
+bed.value = 2.0
+assert draws["logs"] == logs_before and draws["blocks"] == blocks_before + 2
+print("WELL", result.well.name, "WINDOWS", len(current.windows))
+'''
 
-def test_tuning_notebook_runs_and_writes_settings(tmp_path, monkeypatch):
+
+def run_notebook(tmp_path, monkeypatch, well=None, checks=False):
     nbformat = pytest.importorskip("nbformat")
     nbclient = pytest.importorskip("nbclient")
     pytest.importorskip("ipykernel")
     pytest.importorskip("ipywidgets")
     monkeypatch.setenv("LOGPREP_NOTEBOOK_OUT", str(tmp_path))
     monkeypatch.setenv("MPLBACKEND", "Agg")
+    if well is not None:
+        monkeypatch.setenv("LOGPREP_WELL", str(well))
+    else:
+        monkeypatch.delenv("LOGPREP_WELL", raising=False)
     nb = nbformat.read(NOTEBOOK, as_version=4)
+    if checks:
+        nb.cells.append(nbformat.v4.new_code_cell(CHECKS))
     nbclient.NotebookClient(nb, timeout=300, kernel_name="python3",
                             resources={"metadata": {"path": str(tmp_path)}}).execute()
-    got, _ = read_config(tmp_path / "tuned-settings.toml")
-    assert ScreenSettings(**got) == ScreenSettings()  # run headless: the slider defaults
     outputs = [o for c in nb.cells if c.cell_type == "code" for o in c.get("outputs", [])]
     assert not [o for o in outputs if o.get("output_type") == "error"]
+    return outputs
+
+
+def test_tuning_notebook_runs_and_writes_settings(tmp_path, monkeypatch):
+    outputs = run_notebook(tmp_path, monkeypatch)
+    got, _ = read_config(tmp_path / "tuned-settings.toml")
+    example = ScreenSettings(**got)
+    assert example.updated(tops_file=None) == ScreenSettings()  # headless: the slider defaults
     assert any("image/png" in o.get("data", {}) for o in outputs)  # the sheet was drawn
+
+
+def test_notebook_on_own_well_redraws_only_what_a_slider_changes(tmp_path, monkeypatch, example_dir):
+    own = tmp_path / "my data" / "MY-WELL.las"  # a well of the user's, outside the package
+    own.parent.mkdir()
+    shutil.copy(example_dir / "HRM-4.las", own)
+    outputs = run_notebook(tmp_path, monkeypatch, well=own, checks=True)
+    text = "".join(o.get("text", "") for o in outputs if o.get("output_type") == "stream")
+    assert "WELL HRM-4" in text

@@ -167,7 +167,27 @@ def test_sweep_reuses_reference_and_counts(example_dir):
     assert np.all((t["net_to_gross"] > 0) & (t["net_to_gross"] < 1))
     wcols = [c for c in t.columns if c.startswith("w") and c[1:].isdigit()]
     assert len(wcols) == len(sw.windows) == ref["sand_sand_windows"]
-    assert set(t[wcols].to_numpy().ravel()) <= {"leak", "seal", "apart"}
+    assert set(t[wcols].to_numpy().ravel()) <= {"leak", "uncertain", "seal", "apart"}
+
+
+def test_tune_numbers_and_words_are_the_sheets(example_dir):
+    # one numbering and one vocabulary: tune's w<k> is row k of juxtapositions.csv (the
+    # sheet's #k) and its reference verdicts are the sheet's words (leak / uncertain / seal)
+    s = ScreenSettings(sgr_leak_pct=18.5, sgr_threshold_pct=24.0)  # puts windows in all three
+    sw = sweep_file(example_dir / "HRM-5.las", s, sand_cutoffs=[0.3], shale_cutoffs=[0.65],
+                    min_beds_m=[1.0])
+    w = sw.reference.windows
+    assert set(w.loc[~w["self_juxtaposed"], "verdict"]) == {"leak", "uncertain", "seal"}
+    for row in sw.windows.itertuples():
+        sheet_row = w.iloc[row.window - 1]
+        assert not sheet_row["self_juxtaposed"]
+        assert sheet_row["footwall_top_m"] == row.footwall_top_m
+        assert sheet_row["hangingwall_top_m"] == row.hangingwall_top_m
+        assert sheet_row["verdict"] == row.verdict
+    ref = sw.table[sw.table["is_reference"]].iloc[0]
+    cross = w[~w["self_juxtaposed"]]
+    assert ref["leak_windows"] == (cross["verdict"] == "leak").sum()
+    assert all(ref[f"w{k}"] == w.iloc[k - 1]["verdict"] for k in sw.windows["window"])
 
 
 def test_cli_tune_writes_table_figure_and_settings(tmp_path, example_dir, capsys):

@@ -118,12 +118,27 @@ def contact_ends(w, throw_m):
     return top, base, top_h, base_h
 
 
+_LAST_CLAY: tuple = (None, None)
+
+
+def _cumulative_clay_of(layers: Layers):
+    """:func:`logprep.fault.juxtaposition.cumulative_clay` of ``layers``, remembered for
+    the last column (its arrays are read-only): every window of a well asks for it several
+    times, and recomputing it per window made the capacity step grow as windows x layers."""
+    global _LAST_CLAY
+    cached = _LAST_CLAY  # one read: safe if another thread replaces it meanwhile
+    if cached[0] is not layers:
+        cached = (layers, cumulative_clay(layers))
+        _LAST_CLAY = cached
+    return cached[1]
+
+
 def sgr_between_pct(layers: Layers, footwall_depth_m, hangingwall_depth_m):
     """SGR (%) of the slipped interval between a hanging-wall depth and the footwall depth
     facing it: ``100 (C(z) - C(z - t)) / t`` (Yielding et al. 1997), the same value as
     :func:`logprep.fault.juxtaposition.sgr_layered_pct` at throw ``t = z_fw - z_hw`` but with the
     two depths given, so a point on a bed edge stays on it."""
-    bounds, clay = cumulative_clay(layers)
+    bounds, clay = _cumulative_clay_of(layers)
     z, zh = np.asarray(footwall_depth_m, float), np.asarray(hangingwall_depth_m, float)
     return 100.0 * (np.interp(z, bounds, clay) - np.interp(zh, bounds, clay)) / (z - zh)
 
@@ -258,9 +273,10 @@ def seal_capacity_table(windows: pd.DataFrame, layers: Layers, params: CapacityP
     if length_unit not in LENGTH_UNITS:
         raise SettingsError(f"unknown length unit {length_unit!r}; use one of {', '.join(LENGTH_UNITS)}")
     out = windows.copy()
+    # plain dicts per row: a pandas row lookup costs more than the science of a window
     rows = [_window_capacity(layers, w, params, datum_m, surface_elevation_m,
                              _co2_density(w, params, datum_m, surface_elevation_m))
-            for _, w in windows.iterrows()]
+            for w in windows.to_dict("records")]
     extra = pd.DataFrame(rows, columns=CAPACITY_COLUMNS, index=windows.index)
     for col in CAPACITY_COLUMNS:
         out[col] = extra[col] if len(windows) else pd.Series(dtype=object if col in _TEXT_COLUMNS else float)

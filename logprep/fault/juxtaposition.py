@@ -221,14 +221,21 @@ def sand_windows(layers: Layers, throw_max_m: float, lithology: str = "sand",
     if throw_max_m <= 0:
         raise ValueError("throw_max_m must be positive")
     if reservoir is None:
-        idx = [i for i, lith in enumerate(layers.lithology) if lith == lithology]
+        idx = np.array([i for i, lith in enumerate(layers.lithology) if lith == lithology], dtype=int)
     else:
-        idx = [int(i) for i in np.flatnonzero(np.asarray(reservoir, bool))]
+        idx = np.flatnonzero(np.asarray(reservoir, bool)).astype(int)
     bounds, clay = cumulative_clay(layers)
+    # only hanging-wall beds that can touch within the throw cap: top below the footwall
+    # bed's base, base within ``throw_max_m`` above its top (the layers are in depth
+    # order), so the work grows with the windows, not with the square of the sands
+    tops_h, bases_h = layers.top_m[idx], layers.base_m[idx]
     rows = []
-    for fi in idx:
+    for fi in idx.tolist():
         a, b = layers.top_m[fi], layers.base_m[fi]
-        for hi in idx:
+        slack = 1e-6 * (1.0 + abs(a) + throw_max_m)  # the exact test below decides
+        first = int(np.searchsorted(bases_h, a - throw_max_m - slack, side="left"))
+        last = int(np.searchsorted(tops_h, b + slack, side="right"))
+        for hi in idx[first:last].tolist():
             c, e = layers.top_m[hi], layers.base_m[hi]
             lo, hi_t = juxtaposition_throw_range(a, b, c, e)
             hi_cap = min(float(hi_t), throw_max_m)

@@ -220,6 +220,7 @@ def sgr_field_pct(bounds_m, clay_m, g: float, throw_m, rows_every: int = 1,
         return depth, out.T
     Cz = E[P:P + span:m]
     buf = np.empty(nz)
+    tmp = np.empty(nz)
     # slope just above each row (the first row takes the slope below): the t -> 0 limit
     above = dE[P:P + span:m].copy()
     above[0] = dE[P + 1]
@@ -234,7 +235,8 @@ def sgr_field_pct(bounds_m, clay_m, g: float, throw_m, rows_every: int = 1,
         # C(z - t) = E[i - q] - f * (E[i - q] - E[i - q - 1])
         np.subtract(Cz, E[a:a + span:m], out=buf)
         if f:
-            buf += f * dE[a:a + span:m]
+            np.multiply(dE[a:a + span:m], f, out=tmp)
+            buf += tmp
         np.multiply(buf, 100.0 / t, out=row, casting="same_kind")
     return depth, out.T
 

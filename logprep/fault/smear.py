@@ -104,26 +104,85 @@ def smear_at(layers: Layers, depth_m, throw_m) -> tuple[np.ndarray, np.ndarray]:
 def smear_fields(layers: Layers, depth_m, throw_m, dtype=np.float32):
     """SSF and CSP (m) on the grid ``depth_m`` (rows) x ``throw_m`` (columns).
 
-    Work is limited to the rows a bed can reach (``z`` within the bed's top and base plus
-    the largest throw), so the cost is about (source beds) x (rows reached) x (throws).
+    A bed passes a point ``(z, t > 0)`` only for ``top < z < base + t``, so each bed is
+    worked on over the rows from its top to its base plus the largest throw and, row
+    block by row block, over the throws large enough to reach back to its base: about
+    the area where it has passed.  The work is therefore (cells) x (source beds a throw
+    spans), which is linear in the rows at a fixed throw range; CSP is a sum over the
+    passed beds, so it cannot be cheaper than that.  Values are those of
+    :func:`smear_at` point by point, bit for bit (the same terms added in the same bed
+    order).  Unsorted or negative throws, or depths not increasing, take a plain per-bed
+    pass over all rows and throws.
     """
     z = np.asarray(depth_m, float)
     t = np.asarray(throw_m, float)
     tmax = np.zeros((z.size, t.size))
     csp = np.zeros((z.size, t.size))
-    reach = float(np.abs(t).max(initial=0.0))
-    for i in source_beds(layers):
-        top, base = layers.top_m[i], layers.base_m[i]
-        r0, r1 = np.searchsorted(z, [top - reach, base + reach], side="left")
-        rows = slice(r0, r1 + 1)
-        passed, thick, term = _bed_terms(top, base, z[rows, None], t[None, :])
-        np.maximum(tmax[rows], np.where(passed, thick, 0.0), out=tmax[rows])
-        csp[rows] += np.where(passed, term, 0.0)
+    if t.size and (t[0] < 0 or np.any(np.diff(t) <= 0) or np.any(np.diff(z) <= 0)):
+        _smear_dense(layers, z, t, tmax, csp)
+    elif t.size and z.size:
+        _smear_staircase(layers, z, t, tmax, csp)
     ssf = shale_smear_factor(t[None, :], tmax)
     return ssf.astype(dtype), csp.astype(dtype)
 
 
-def _window_extremes(layers: Layers, w, throw_max_m: float, n_edge: int) -> tuple[float, ...]:
+def _smear_dense(layers: Layers, z, t, tmax, csp) -> None:
+    """Every source bed over the rows it can reach (``z`` within its top and base plus
+    the largest throw) and every throw: the general case of :func:`smear_fields`."""
+    reach = float(np.abs(t).max(initial=0.0))
+    increasing = bool(np.all(np.diff(z) > 0))
+    for i in source_beds(layers):
+        top, base = layers.top_m[i], layers.base_m[i]
+        r0, r1 = np.searchsorted(z, [top - reach, base + reach], side="left") if increasing \
+            else (0, z.size)
+        rows = slice(r0, r1 + 1)
+        passed, thick, term = _bed_terms(top, base, z[rows, None], t[None, :])
+        np.maximum(tmax[rows], np.where(passed, thick, 0.0), out=tmax[rows])
+        csp[rows] += np.where(passed, term, 0.0)
+
+
+_SMEAR_BLOCK_CELLS = 1 << 16
+"""Cells of one row block of :func:`_smear_staircase` (fits a core's cache)."""
+
+
+def _smear_staircase(layers: Layers, z, t, tmax, csp) -> None:
+    """:func:`_smear_dense` for increasing throws >= 0, restricted to where a bed can
+    have passed: rows ``top < z < base + t_max``, throws ``t > z - base``.  The tests of
+    :func:`_bed_terms` still decide every point (the ranges are only made no narrower)."""
+    c0 = int(np.searchsorted(t, 0.0, side="right"))  # t = 0: nothing has passed
+    if c0 == t.size:
+        return
+    t_last = float(t[-1])
+    block = max(8, _SMEAR_BLOCK_CELLS // t.size)
+    for i in source_beds(layers):
+        top, base = layers.top_m[i], layers.base_m[i]
+        thick = base - top
+        mid = 0.5 * (top + base)
+        half = 0.5 * thick
+        sq = thick * thick
+        slack = 1e-9 * (1.0 + abs(base) + t_last)
+        ra = int(np.searchsorted(z, top, side="right"))  # first row with top < z
+        rb = int(np.searchsorted(z, base + t_last + slack, side="right"))
+        mid_t = mid + t
+        for r0 in range(ra, rb, block):
+            r1 = min(r0 + block, rb)
+            zc = z[r0:r1, None]
+            cs = max(c0, int(np.searchsorted(t, z[r0] - base - slack, side="left")))
+            # passed: top < z (every row here), base > z - t, t != 0 (every column here)
+            passed = base > zc - t[None, cs:]
+            inv_fw = 1.0 / np.maximum(np.abs(zc - mid), half)
+            buf = mid_t[None, cs:] - zc
+            np.abs(buf, out=buf)
+            np.maximum(buf, half, out=buf)
+            np.divide(1.0, buf, out=buf)
+            np.add(inv_fw, buf, out=buf)
+            np.multiply(sq, buf, out=buf)
+            np.add(csp[r0:r1, cs:], buf, out=csp[r0:r1, cs:], where=passed)
+            np.maximum(tmax[r0:r1, cs:], thick, out=tmax[r0:r1, cs:], where=passed)
+
+
+def _window_extremes(layers: Layers, w, throw_max_m: float, n_edge: int,
+                     shale: np.ndarray | None = None) -> tuple[float, ...]:
     """SSF and CSP extremes over one window's contact area.
 
     Inside a sand-sand contact area the beds that have passed are fixed (every layer
@@ -134,10 +193,11 @@ def _window_extremes(layers: Layers, w, throw_max_m: float, n_edge: int) -> tupl
     """
     fi, hi = int(w.footwall_layer), int(w.hangingwall_layer)
     lo_i, hi_i = min(fi, hi), max(fi, hi)
-    between = [i for i in source_beds(layers) if lo_i < i < hi_i]
-    if not between:
+    shale = source_beds(layers) if shale is None else shale  # sorted layer indices
+    between = shale[np.searchsorted(shale, lo_i, side="right"):np.searchsorted(shale, hi_i, side="left")]
+    if not between.size:
         return np.inf, np.inf, 0.0, 0.0
-    tmax = float(np.max(layers.thickness_m[between]))
+    tmax = float(np.max(layers.base_m[between] - layers.top_m[between]))
     ssf_min = float(w.throw_min_m) / tmax
     ssf_max = float(w.throw_max_m) / tmax
     poly = contact_polygon(w.footwall_top_m, w.footwall_base_m, w.hangingwall_top_m,
@@ -150,9 +210,12 @@ def _window_extremes(layers: Layers, w, throw_max_m: float, n_edge: int) -> tupl
     pts = pts[pts[:, 0] > 0]  # t -> 0 has no smear distance along the fault
     if len(pts) == 0:
         return ssf_min, ssf_max, np.nan, np.nan
-    sub = Layers(layers.top_m[between], layers.base_m[between], layers.vsh[between],
-                 ["shale"] * len(between))
-    _, csp = smear_at(sub, pts[:, 1], pts[:, 0])
+    # CSP of smear_at, all the beds at once (one row each), summed in bed order
+    passed, _, term = _bed_terms(layers.top_m[between][:, None], layers.base_m[between][:, None],
+                                 pts[None, :, 1], pts[None, :, 0])
+    csp = np.zeros(len(pts))
+    for row in np.where(passed, term, 0.0):
+        csp += row
     return ssf_min, ssf_max, float(csp.min()), float(csp.max())
 
 
@@ -163,7 +226,8 @@ def window_smear(layers: Layers, windows: pd.DataFrame, throw_max_m: float,
     sand against itself) and ``csp_min_m``/``csp_max_m`` (metres; 0 there).  CSP is
     multiplied by ``csp_factor`` (:func:`logprep.fault.geometry.csp_factor`: distances along
     a dipping fault and true bed thicknesses instead of vertical ones)."""
-    rows = [_window_extremes(layers, w, throw_max_m, n_edge) for w in windows.itertuples()]
+    shale = source_beds(layers)  # once per well: the windows only look up their range
+    rows = [_window_extremes(layers, w, throw_max_m, n_edge, shale) for w in windows.itertuples()]
     out = pd.DataFrame(rows, columns=SMEAR_COLUMNS, index=windows.index, dtype=float)
     out[["csp_min_m", "csp_max_m"]] *= csp_factor
     return out

@@ -175,6 +175,19 @@ def read_well_name(path: str | Path) -> str:
     return str(las.well["WELL"].value).strip() if "WELL" in las.well else ""
 
 
+def read_well_header(path: str | Path) -> dict[str, str]:
+    """The ``~Well`` items of a LAS file (mnemonic -> value as text), reading the header
+    only; empty when the file cannot be read as LAS."""
+    path = Path(path)
+    try:
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")
+            las = lasio.read(str(path), ignore_data=True, encoding=_bom_encoding(path))
+    except Exception:  # noqa: BLE001 - lasio raises many types for unreadable input
+        return {}
+    return {item.mnemonic: str(item.value) for item in las.well}
+
+
 def read_well(
     path: str | Path,
     *,

@@ -51,13 +51,15 @@ def contourable(z) -> bool:
     return np.ndim(z) == 2 and min(np.shape(z)) >= 2
 
 
-def draw_contours(ax, x, y, z, levels, fmt: str, **kwargs):
-    """Labelled contours of ``z`` at ``levels``, or nothing when ``z`` is too small."""
+def draw_contours(ax, x, y, z, levels, fmt: str = "", **kwargs):
+    """Contours of ``z`` at ``levels``, or nothing when ``z`` is too small.
+
+    The levels are not written along the lines (such labels pile on each other and on the
+    window numbers in a crowded diagram): the caller marks them on the colour bar
+    (:func:`draw_sgr_colourbar`, ``Colorbar.add_lines``)."""
     if not contourable(z):
         return None
-    cs = ax.contour(x, y, z, levels=levels, **kwargs)
-    ax.clabel(cs, fmt=fmt, fontsize=6)
-    return cs
+    return ax.contour(x, y, z, levels=levels, **kwargs)
 
 
 def field_ylim(depth, dz: float) -> tuple[float, float]:
@@ -93,7 +95,9 @@ def draw_field(ax, grid, *, threshold_pct: float, throw_max_m: float, windows=No
         cf.set_rasterized(True)  # hatching as vector paths is slow to write and to view
     levels = sgr_levels(threshold_pct)
     widths = [1.6 if lv == threshold_pct else 0.6 for lv in levels]
-    draw_contours(ax, throw, depth, sgr, levels, "%g%%", colors=INK, linewidths=widths)
+    ax.set_xlim(min(0.0, throw[0]), throw_max_m)
+    ax.set_ylim(*field_ylim(depth, dz))
+    im.contours = draw_contours(ax, throw, depth, sgr, levels, colors=INK, linewidths=widths)
     if windows is not None and len(windows):
         polys = {}  # row number (from 1) -> outline, for windows between different sands
         for k, w in enumerate(windows.itertuples(), start=1):
@@ -110,135 +114,102 @@ def draw_field(ax, grid, *, threshold_pct: float, throw_max_m: float, windows=No
                 ax.add_collection(PolyCollection(group, facecolors="none", edgecolors=WINDOW_INK,
                                                  linewidths=1.1 if strong else 0.5,
                                                  linestyles="-" if strong else ":"))
-        for k in labelled:
-            if k in polys:
-                tmid, zmid = polys[k].mean(axis=0)
-                ax.text(tmid, zmid, str(k), fontsize=6.5, ha="center", va="center",
-                        bbox=dict(boxstyle="round,pad=0.15", fc="white", ec=WINDOW_INK, lw=0.6))
-    ax.set_xlim(min(0.0, throw[0]), throw_max_m)
-    ax.set_ylim(*field_ylim(depth, dz))
+        draw_window_numbers(ax, {k: polys[k] for k in labelled if k in polys})
     return im
 
 
-def draw_sgr_colourbar(ax, im, label="SGR (%)"):
+def draw_window_numbers(ax, polys: dict) -> None:
+    """Number each window outline (``{number: polygon}``) where the number overlaps no
+    other number, inside the outline where there is room, else nearby with a leader line."""
+    from matplotlib.collections import LineCollection
+
+    from logprep.report.labels import place_number_labels
+
+    anchors = {}
+    for k, poly in polys.items():
+        mid = poly.mean(axis=0)
+        anchors[str(k)] = [mid] + [0.5 * (mid + v) for v in poly]
+    spots = place_number_labels(ax, anchors)
+    leaders = []
+    for k, (x, y, moved) in spots.items():
+        ax.text(x, y, k, fontsize=6.5, ha="center", va="center",
+                bbox={"boxstyle": "round,pad=0.15", "fc": "white", "ec": WINDOW_INK, "lw": 0.6})
+        if moved:
+            leaders.append([anchors[k][0], (x, y)])
+    if leaders:
+        ax.add_collection(LineCollection(leaders, colors=WINDOW_INK, linewidths=0.5, zorder=2.5))
+
+
+def draw_sgr_colourbar(ax, im, label="SGR %; lines: contours"):
+    """A small horizontal colour bar above ``ax``, its label to its left; the field's
+    contour levels (if drawn) are marked on it and its ticks are the levels themselves."""
     cax = ax.inset_axes([0.62, 1.015, 0.38, 0.018])
+    ax.text(0.61, 1.024, label, transform=ax.transAxes, ha="right", va="center", fontsize=6.5)
     cb = ax.figure.colorbar(im, cax=cax, orientation="horizontal")
+    cs = getattr(im, "contours", None)
+    if cs is not None:
+        cb.add_lines(cs)
+        cb.set_ticks([0, *cs.levels, 100])
     cb.ax.tick_params(labelsize=6, length=2, pad=1)
     cb.ax.xaxis.set_ticks_position("top")
-    cb.set_label(label, fontsize=6.5, labelpad=1)
-    cb.ax.xaxis.set_label_position("top")
+    return cb
 
 
-TABLE_HEAD = ["#", "footwall\nsand (m)", "hanging-wall\nsand (m)",
-              "throw\nrange (m)", "SGR\nmin %", "SGR\nmax %", "oil\ncolumn", "verdict", "note"]
-VERDICT_COLOURS = {"leak": "#F6C9A8", "uncertain": "#FBE8A6", "seal": "#CFE8F7"}
-"""Cell shades of the verdict column (light tints of Okabe & Ito vermilion, yellow, sky blue)."""
+from logprep.report.table import (  # noqa: E402  the window table lives beside the helpers
+    MONO_ADVANCE_EM, TABLE_HEAD, VERDICT_COLOURS, draw_window_table, formation_at, window_rows,
+)
+
+__all__ = ["MONO_ADVANCE_EM", "TABLE_HEAD", "VERDICT_COLOURS", "draw_window_table", "formation_at",
+           "window_rows"]
 
 
-def window_rows(windows, numbers, threshold_pct, length_unit: str = "m") -> list[list[str]]:
-    """Table rows for the windows with the given row numbers (from 1).  The oil column
-    height is shown in ``length_unit`` (``m`` or ``ft``)."""
-    per_m = 1.0 if length_unit == "m" else 1.0 / 0.3048
-    rows = []
-    for k in numbers:
-        w = windows.iloc[k - 1]
-        note = "sand against itself" if w.self_juxtaposed else (
-            f"SGR < {threshold_pct:g} %" if w.sgr_min_pct < threshold_pct else "")
-        col = w.get("column_oil_m", np.nan) * per_m
-        rows.append([str(k), f"{w.footwall_top_m:.1f}-{w.footwall_base_m:.1f}",
-                     f"{w.hangingwall_top_m:.1f}-{w.hangingwall_base_m:.1f}",
-                     f"{w.throw_min_m:.1f}-{w.throw_max_m:.1f}", f"{w.sgr_min_pct:.1f}",
-                     f"{w.sgr_max_pct:.1f}", f"{col:.0f} {length_unit}" if np.isfinite(col) else "",
-                     str(w.get("verdict", "")), note])
-    return rows
+FOOTER_TOP = 0.165
+"""Figure fraction the foot (provenance, notes, caution) may reach: page content ends above."""
+NOTE_LINES = 3
+"""Most lines of notes on a page; the rest are in ``notes.txt`` (the foot says so)."""
 
 
-MONO_ADVANCE_EM = 1233 / 2048
-"""Advance width of every glyph of DejaVu Sans Mono (matplotlib's bundled monospace font),
-in ems: fixed-width columns can then be placed exactly."""
+def caution_box(fig, y: float = 0.012, fontsize: float = 8.0, width: float = 0.97):
+    """The caution in its box at the foot of ``fig``, wrapped to the page width (computed,
+    not matplotlib's wrap, which measures every word while drawing)."""
+    from logprep.report.layout import wrap_to_width
+
+    width_pt = width * fig.get_figwidth() * 72.0 - 12
+    text = wrap_to_width("CAUTION: " + CAUTION, width_pt, fontsize, mono=False)
+    return fig.text(0.015, y, text, fontsize=fontsize, va="bottom", color="#7A1F00", parse_math=False,
+                    bbox={"facecolor": "#FFF4E5", "edgecolor": "#D55E00", "pad": 4})
 
 
-def draw_window_table(ax, rows, title, *, fontsize: float = 7.5) -> None:
-    """A table of ``rows`` under :data:`TABLE_HEAD`, top-left in ``ax``.
+def draw_footer(fig, result, short: bool = False) -> None:
+    """Provenance, settings, notes and the caution, along the foot of a page, wrapped to
+    the page width.  ``short``: one line of provenance (pages after the first)."""
+    from logprep.report.layout import wrap_to_width
 
-    Each row is one line of fixed-width text (centred fields), so a long table costs one
-    text per row instead of a text and a box per cell: several times quicker to write as
-    PDF.  Rows are zebra-shaded and the verdict field tinted by :data:`VERDICT_COLOURS`.
-    The font shrinks (to 5.5 pt at least) to fit the width; rows that do not fit are cut.
-    """
-    from matplotlib.collections import LineCollection, PatchCollection
-    from matplotlib.patches import Rectangle
-
-    ax.set_axis_off()
-    ax.set_xlim(0, 1)
-    ax.set_ylim(0, 1)
-    ax.set_title(title, loc="left", fontsize=9, fontweight="bold")
-    if not rows:
-        ax.text(0, 0.95, "No sand-sand windows between different sands.", va="top", fontsize=9)
-        return
-    heads = [h.split("\n") for h in TABLE_HEAD]
-    n_head = max(len(h) for h in heads)
-    heads = [[""] * (n_head - len(h)) + h for h in heads]
-    widths = [2 + max([len(x) for x in heads[c]] + [len(r[c]) for r in rows])
-              for c in range(len(TABLE_HEAD))]
-    fig = ax.get_figure()
-    pos = ax.get_position()
-    width_pt = pos.width * fig.get_figwidth() * 72.0
-    height_pt = pos.height * fig.get_figheight() * 72.0
-    fontsize = max(5.5, min(fontsize, width_pt / (sum(widths) * MONO_ADVANCE_EM)))
-    char_w = fontsize * MONO_ADVANCE_EM / width_pt  # axes fraction per character
-    row_h = 1.65 * fontsize / height_pt
-    head_h = (n_head + 0.4) * row_h
-    rows = rows[: max(0, int((1.0 - head_h) / row_h))]
-    starts = np.concatenate(([0], np.cumsum(widths)))
-    table_w = starts[-1] * char_w
-    top = 1.0 - head_h
-
-    def line(fields) -> str:
-        return "".join(f.center(w) for f, w in zip(fields, widths))
-
-    shades = [Rectangle((0, top), table_w, head_h, facecolor="#EEEEEE")]
-    vcol = TABLE_HEAD.index("verdict") if "verdict" in TABLE_HEAD else None
-    for r, row in enumerate(rows):
-        y0 = top - (r + 1) * row_h
-        if r % 2:
-            shades.append(Rectangle((0, y0), table_w, row_h, facecolor="#F4F4F4"))
-        if vcol is not None and row[vcol] in VERDICT_COLOURS:
-            shades.append(Rectangle((starts[vcol] * char_w, y0), widths[vcol] * char_w, row_h,
-                                    facecolor=VERDICT_COLOURS[row[vcol]]))
-    ax.add_collection(PatchCollection(shades, match_original=True, linewidths=0))
-    text = dict(family="DejaVu Sans Mono", fontsize=fontsize, va="center", ha="left")
-    for k in range(n_head):
-        ax.text(0, 1.0 - (0.2 + k + 0.5) * row_h, line([h[k] for h in heads]), **text)
-    for r, row in enumerate(rows):
-        ax.text(0, top - (r + 0.5) * row_h, line(row), **text)
-    bottom = top - len(rows) * row_h
-    rules = [[(0, y), (table_w, y)] for y in (1.0, top, bottom)]
-    rules += [[(x * char_w, bottom), (x * char_w, 1.0)] for x in starts]
-    ax.add_collection(LineCollection(rules, colors="#BBBBBB", linewidths=0.5))
-
-
-def draw_footer(fig, result) -> None:
-    """Provenance, settings, notes and the caution, along the foot of a page."""
     s, w = result.settings, result.well
-    prov = (
-        f"Source: {w.source}   sha256 {w.sha256[:16]}...   WELL '{w.name}'   depth unit as read: "
-        f"{w.depth_unit}   GR curve: {w.gr_mnemonic}   logprep {__version__}\n"
-        f"Settings: transform {s.clay.transform}; GR clean {s.clay.gr_clean}, shale {s.clay.gr_shale} per zone "
-        f"({len(result.picks)} zone(s), {s.clay.zoning}; whole well {result.gr_clean_api:.1f}-"
-        f"{result.gr_shale_api:.1f} API; picks.csv); Vsh {s.clay.vsh_combine} of GR and neutron-density; "
-        f"QC flags in qc.csv;\n          cut-offs sand <= {s.layers.sand_cutoff:g}, "
-        f"shale >= {s.layers.shale_cutoff:g}; min bed {s.layers.min_bed_m:g} m; blocking {s.layers.blocking}"
-        f"{f' (penalty {s.layers.changepoint_penalty:g})' if s.layers.blocking == 'changepoint' else ''}"
-        f"{', tied to tops' if s.layers.honour_tops else ''}; "
-        f"throws 0-{s.field.throw_max_m:g} m; SGR threshold {s.capacity.sgr_threshold_pct:g} %."
-    )
-    if result.notes:
-        prov += "\nNotes: " + "; ".join(result.notes)
-    fig.text(0.015, 0.058, prov, fontsize=7, va="bottom", family="monospace")
-    fig.text(0.015, 0.012, "CAUTION: " + CAUTION, fontsize=8, va="bottom", wrap=True,
-             color="#7A1F00", bbox=dict(facecolor="#FFF4E5", edgecolor="#D55E00", pad=4))
-
+    head = (f"Source: {w.source}   sha256 {w.sha256[:16]}...   WELL '{w.name}'   depth unit as read: "
+            f"{w.depth_unit}   GR curve: {w.gr_mnemonic}   logprep {__version__}")
+    width_pt = 0.95 * fig.get_figwidth() * 72.0
+    if short:
+        prov = wrap_to_width(head + "   settings, notes: page 1", width_pt, 7)
+    else:
+        prov = head + (
+            f"\nSettings: transform {s.clay.transform}; GR clean {s.clay.gr_clean}, shale "
+            f"{s.clay.gr_shale} per zone ({len(result.picks)} zone(s), {s.clay.zoning}; whole well "
+            f"{result.gr_clean_api:.1f}-{result.gr_shale_api:.1f} API; picks.csv); Vsh "
+            f"{s.clay.vsh_combine} of GR and neutron-density; QC flags in qc.csv; cut-offs sand <= "
+            f"{s.layers.sand_cutoff:g}, shale >= {s.layers.shale_cutoff:g}; min bed {s.layers.min_bed_m:g} m; "
+            f"blocking {s.layers.blocking}"
+            f"{f' (penalty {s.layers.changepoint_penalty:g})' if s.layers.blocking == 'changepoint' else ''}"
+            f"{', tied to tops' if s.layers.honour_tops else ''}; throws 0-{s.field.throw_max_m:g} m; "
+            f"SGR threshold {s.capacity.sgr_threshold_pct:g} %.")
+        prov = wrap_to_width(prov, width_pt, 7)
+        if result.notes:
+            notes = wrap_to_width("Notes: " + "; ".join(result.notes), width_pt, 7).splitlines()
+            if len(notes) > NOTE_LINES:
+                notes = notes[:NOTE_LINES - 1] + [notes[NOTE_LINES - 1][: 150] + " ... (all notes in notes.txt)"]
+            prov += "\n" + "\n".join(notes)
+    fig.text(0.015, 0.058, prov, fontsize=7, va="bottom", family="monospace", parse_math=False)
+    caution_box(fig)
 
 
 # ----------------------------------------------------------------------------- window choice

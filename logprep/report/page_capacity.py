@@ -4,8 +4,6 @@ the numbers.  Builds a Figure only; never saves."""
 
 from __future__ import annotations
 
-import textwrap
-
 import numpy as np
 from matplotlib.figure import Figure
 
@@ -15,9 +13,13 @@ from logprep.report.draw import PAGE_SIZE_IN, draw_footer, riskiest_windows
 from logprep.units import M_PER_FT
 
 N_CURVES = 8
-# Okabe & Ito (2008) colours, black last
-CURVE_COLOURS = ["#D55E00", "#0072B2", "#009E73", "#E69F00", "#CC79A7", "#56B4E9", "#F0E442", "#000000"]
+# Okabe & Ito (2008) colours that read on white (their yellow does not), then black and grey;
+# the line style changes from curve to curve too, so the curves stay apart in grey print
+CURVE_COLOURS = ["#D55E00", "#0072B2", "#009E73", "#E69F00", "#CC79A7", "#56B4E9", "#000000", "#7F7F7F"]
 LINESTYLES = ["-", "--", "-.", ":"]
+COLUMN_CAP_M = 2000.0
+"""Top of the column-height axis (m): a fault holding more holds any realistic column, and
+the axis says so instead of running to 10^4 m."""
 
 CAPACITY_CAUTION = (
     "Screening estimate only. Fault-zone pressure uses the envelope of Bretan, Yielding & Jones (2003), "
@@ -39,41 +41,52 @@ def _fluid_contrasts(result):
     }
 
 
-def draw_column_panel(ax, result, fluid: str, numbers) -> None:
+def draw_column_panel(ax, result, fluid: str, numbers, columns_fn=None) -> list:
     """Leak-point column height against throw for the windows ``numbers`` (from 1), one
     fluid, with the heights equivalent to the two verdict thresholds as lines (for the
-    weakest burial class among the windows drawn, i.e. the largest C)."""
+    weakest burial class among the windows drawn, i.e. the largest C).  Returns the
+    legend handles; nothing is written on the curves.  ``columns_fn(w, c, drho, throws)``
+    gives a window's columns (default: one well's, :func:`window_columns_m`)."""
+    from matplotlib.lines import Line2D
+
     s, w_all = result.settings, result.windows
     per = 1.0 if s.capacity.length_unit == "m" else 1.0 / M_PER_FT
+    cap = COLUMN_CAP_M * per
+    if columns_fn is None:
+        def columns_fn(w, c, drho, t):
+            return window_columns_m(result.layers, w, c, [drho], t, s.capacity.envelope_sgr_scale_pct)[0]
     drho_fixed = _fluid_contrasts(result)[fluid]
-    weakest_c = None
+    weakest_c, handles, lows = None, [], []
     for i, k in enumerate(numbers):
         w = w_all.iloc[k - 1]
         c = float(envelope_c(w.burial_depth_m, s.capacity.envelope_class_bounds_m, s.capacity.envelope_class_c))
         weakest_c = c if weakest_c is None else max(weakest_c, c)
         drho = drho_fixed if drho_fixed is not None else s.capacity.brine_density_kgm3 - w.co2_density_kgm3
         t = window_throws(w)
-        h = window_columns_m(result.layers, w, c, [drho], t, s.capacity.envelope_sgr_scale_pct)[0] * per
-        ax.plot(t, h, color=CURVE_COLOURS[i % len(CURVE_COLOURS)],
-                ls=LINESTYLES[(i // len(CURVE_COLOURS)) % len(LINESTYLES)], lw=1.4,
-                label=f"#{k} ({w.verdict})")
+        h = np.asarray(columns_fn(w, c, drho, t), float) * per
+        lows.append(np.nanmin(h) if np.isfinite(h).any() else cap)
+        handles += ax.plot(t, np.minimum(h, cap * 1.5), color=CURVE_COLOURS[i % len(CURVE_COLOURS)],
+                           ls=LINESTYLES[i % len(LINESTYLES)], lw=1.4, label=f"#{k} ({w.verdict})")
     if weakest_c is not None:
         drho = drho_fixed if drho_fixed is not None else s.capacity.brine_density_kgm3 - float(
             np.nanmedian(w_all.iloc[[k - 1 for k in numbers]]["co2_density_kgm3"]))
-        for sgr, style, word in ((s.capacity.sgr_leak_pct, ":", "leak below"), (s.capacity.sgr_threshold_pct, "--", "seal from")):
+        for sgr, style, word in ((s.capacity.sgr_leak_pct, ":", "leak below"),
+                                 (s.capacity.sgr_threshold_pct, "--", "seal from")):
             p = fault_zone_pressure_bar(sgr, 0.0, sgr_scale_pct=s.capacity.envelope_sgr_scale_pct,
                                         class_bounds_m=(0.0,), class_c=(weakest_c, weakest_c))
             h = float(column_height_m(p, drho, 0.0)) * per
             ax.axhline(h, color="#555555", ls=style, lw=1)
-            ax.text(0.99, h, f"SGR {sgr:g} % ({word}), C {weakest_c:g}", fontsize=6.5,
-                    ha="right", va="bottom", color="#555555", transform=ax.get_yaxis_transform())
+            handles.append(Line2D([], [], color="#555555", ls=style, lw=1,
+                                  label=f"column at SGR {sgr:g} % ({word}), C {weakest_c:g}"))
     ax.set_yscale("log")
+    ax.set_ylim(max(0.5 * min(lows), 0.1 * per) if lows else 1.0, cap)
     tmax = max(float(w_all.iloc[k - 1].throw_max_m) for k in numbers) if numbers else s.field.throw_max_m
     ax.set_xlim(0, min(s.field.throw_max_m, 1.05 * tmax))
     ax.set_xlabel("Throw (m)")
     ax.set_title(f"{fluid.upper() if fluid == 'co2' else fluid.capitalize()}", loc="left", fontsize=10)
     ax.grid(True, which="both", color="#E5E5E5", lw=0.5)
     ax.tick_params(labelsize=7.5)
+    return handles
 
 
 def _density_note(result) -> str:
@@ -87,30 +100,39 @@ def _density_note(result) -> str:
             f"{', '.join(f'{b:g}' for b in s.capacity.envelope_class_bounds_m)} m.")
 
 
-def seal_capacity_page(result) -> list[Figure]:
-    """Page 2: column heights against throw for the riskiest windows (numbers as on page 1)."""
+def seal_capacity_page(result, columns_fn=None, footer=None) -> list[Figure]:
+    """Page 2: column heights against throw for the riskiest windows (numbers as on page 1).
+    ``columns_fn`` as in :func:`draw_column_panel`; ``footer(fig)`` draws the foot (default:
+    the well's, :func:`draw_footer`)."""
+    from logprep.report.layout import wrap_to_width
+
     s = result.settings
     fig = Figure(figsize=PAGE_SIZE_IN)
-    fig.suptitle(f"{result.well.name}: seal capacity of the sand-sand windows", x=0.015, ha="left",
-                 fontsize=14, fontweight="bold")
+    fig.text(0.015, 0.975, f"{result.well.name}: seal capacity of the sand-sand windows", ha="left",
+             va="top", fontsize=14, fontweight="bold", parse_math=False)
     numbers = riskiest_windows(result, N_CURVES)
     unit = s.capacity.length_unit
-    fig.text(0.015, 0.915,
+    width_pt = 0.95 * fig.get_figwidth() * 72
+    fig.text(0.015, 0.93, wrap_to_width(
              f"Leak-point column height ({unit}) above the free-water level that the fault rock can hold, "
              f"against throw, for the {len(numbers)} windows with the lowest SGR (numbers as on page 1). "
-             "At each throw the weakest point of the whole contact limits the column.",
-             fontsize=9)
+             "At each throw the weakest point of the whole contact limits the column. The axis stops at "
+             f"{COLUMN_CAP_M * (1.0 if unit == 'm' else 1.0 / M_PER_FT):g} {unit}: a curve above it holds "
+             "any realistic column.", width_pt, 9, mono=False), fontsize=9, va="top")
     if not numbers:
         fig.text(0.015, 0.8, "No sand-sand windows between different sands: nothing to draw.", fontsize=11)
     else:
-        gs = fig.add_gridspec(1, 3, left=0.05, right=0.985, top=0.87, bottom=0.36, wspace=0.15)
+        gs = fig.add_gridspec(1, 3, left=0.05, right=0.985, top=0.86, bottom=0.42, wspace=0.15)
         axes = [fig.add_subplot(gs[i]) for i in range(3)]
         for ax, fluid in zip(axes, ("oil", "gas", "co2")):
-            draw_column_panel(ax, result, fluid, numbers)
+            handles = draw_column_panel(ax, result, fluid, numbers, columns_fn)
         axes[0].set_ylabel(f"Column height ({unit})")
-        axes[0].legend(fontsize=7, loc="upper right", title="window (verdict)", title_fontsize=7)
-    fig.text(0.015, 0.30, _density_note(result), fontsize=8, va="top")
-    fig.text(0.015, 0.26, textwrap.fill("CAUTION (seal capacity): " + CAPACITY_CAUTION, 190),
-             fontsize=9, va="top", color="#7A1F00", linespacing=1.5)
-    draw_footer(fig, result)
+        fig.legend(handles=handles, loc="upper left", bbox_to_anchor=(0.05, 0.365), ncol=5,
+                   fontsize=7.5, frameon=False, title="window (verdict) and the verdict thresholds",
+                   title_fontsize=8, alignment="left")
+    fig.text(0.015, 0.285, wrap_to_width(_density_note(result), width_pt, 8, mono=False), fontsize=8, va="top")
+    fig.text(0.015, 0.245, wrap_to_width("CAUTION (seal capacity): " + CAPACITY_CAUTION, width_pt, 9,
+                                         mono=False),
+             fontsize=9, va="top", color="#7A1F00", linespacing=1.4)
+    (footer or (lambda f: draw_footer(f, result, short=True)))(fig)
     return [fig]

@@ -7,6 +7,10 @@ import numpy as np
 from matplotlib.figure import Figure
 from matplotlib.patches import Patch
 
+from matplotlib.ticker import MaxNLocator
+
+from logprep.report.labels import formation_labels
+from logprep.report.layout import robust_upper
 from logprep.report.draw import (
     INK, LITHOLOGY_COLOURS, NO_DATA, PAGE_SIZE_IN, QC_COLOURS, ROWS_PAGE1, WINDOW_INK, draw_field,
     draw_footer, draw_sgr_colourbar, draw_window_table, riskiest_windows, window_rows,
@@ -14,10 +18,22 @@ from logprep.report.draw import (
 
 
 # ----------------------------------------------------------------------------- tracks
+CLIPPED_INK = "#CC79A7"  # Okabe & Ito reddish purple: readings beyond the GR scale
+
+
 def draw_gr_track(ax, result) -> None:
     """GR with the clean and shale lines of each zone, zone boundaries, and QC flags as
-    coloured ticks along the right edge."""
-    ax.plot(result.gr_api, result.depth_m, color=INK, lw=0.6)
+    coloured ticks along the right edge.  The scale runs from 0 to a nice number above the
+    99.5th percentile (and the shale lines), so spikes do not squeeze the curve; readings
+    beyond it are drawn at the edge and marked."""
+    gr_max = robust_upper(result.gr_api, result.gr_shale_line if result.gr_shale_line is not None
+                          else [result.gr_shale_api])
+    clipped = np.isfinite(result.gr_api) & (result.gr_api > gr_max)
+    ax.plot(np.minimum(result.gr_api, gr_max), result.depth_m, color=INK, lw=0.6)
+    if clipped.any():
+        ax.scatter(np.full(int(clipped.sum()), 0.985), result.depth_m[clipped], s=9, marker="4",
+                   color=CLIPPED_INK, transform=ax.get_yaxis_transform(),
+                   label=f"{int(clipped.sum())} > {gr_max:g} API, at edge")
     if result.gr_clean_line is not None:
         ax.plot(result.gr_clean_line, result.depth_m, color="#0072B2", ls="--", lw=1,
                 label="clean line per zone")
@@ -36,7 +52,10 @@ def draw_gr_track(ax, result) -> None:
             ax.scatter(np.full(int(mask.sum()), 0.97), result.depth_m[mask], s=6, marker="_",
                        color=QC_COLOURS.get(name, INK), transform=trans,
                        label=f"QC: {name.replace('_', ' ')}")
-    ax.set_xlabel(f"GR ({result.well.gr_mnemonic}), API; {len(result.picks)} zone(s)")
+    ax.set_xlim(0, gr_max)
+    ax.set_xticks([v for v in MaxNLocator(3).tick_values(0, gr_max) if 0 <= v < 0.9 * gr_max])
+    ax.set_xlabel(f"GR ({result.well.gr_mnemonic}), API\n{len(result.picks)} zone(s)", fontsize=8,
+                  parse_math=False)
     ax.set_ylabel(f"Depth (m, {getattr(result, 'depth_reference', 'as logged')})")
     ax.legend(loc="lower left", fontsize=6, framealpha=0.9)
     L = result.layers
@@ -58,7 +77,8 @@ def draw_vsh_track(ax, result) -> None:
         ax.plot(np.where(result.filled, result.vsh, np.nan), result.depth_m, color="#CC79A7",
                 lw=2.5, label="interpolated")
     ax.set_xlim(0, 1)
-    ax.set_xlabel(f"Vsh ({s.clay.transform})")
+    ax.set_xticks([0.25, 0.5, 0.75])
+    ax.set_xlabel(f"Vsh ({s.clay.transform})", fontsize=8)
     ax.legend(loc="lower left", fontsize=6.5, framealpha=0.9)
     ax.tick_params(labelleft=False)
 
@@ -77,7 +97,12 @@ def draw_layer_track(ax, result) -> None:
             ax.scatter(np.full(int(bad.sum()), 0.85), result.depth_m[bad], s=8, marker="_",
                        color=INK, transform=ax.get_yaxis_transform())
     ax.set_xticks([])
-    ax.set_xlabel("Layers")
+    tops = getattr(result, "tops", None)
+    if tops is not None and len(tops):
+        formation_labels(ax, tops["top_m"].to_numpy(float), [str(n) for n in tops["name"]])
+        ax.set_xlabel("Layers and\nformation tops", fontsize=8)
+    else:
+        ax.set_xlabel("Layers", fontsize=8)
     ax.tick_params(labelleft=False)
 
 
@@ -91,8 +116,8 @@ def draw_triangle(ax, result, labelled=()) -> None:
                     windows=result.windows, labelled=labelled)
     draw_sgr_colourbar(ax, im)
     ax.set_xlabel("Throw (m); normal fault, hanging wall down")
-    ax.set_title(f"Triangle diagram: SGR from {result.grid.source}, sand-sand windows outlined",
-                 fontsize=9, loc="left", pad=14)
+    ax.text(0.0, 1.012, f"Triangle diagram: SGR from {result.grid.source},\nsand-sand windows outlined",
+            transform=ax.transAxes, fontsize=7.5, ha="left", va="bottom")
     ax.tick_params(labelleft=False)
 
 
@@ -106,7 +131,7 @@ def draw_legend(ax, result) -> None:
         Patch(facecolor="#7F7F7F", edgecolor="#FFFFFF", hatch="////", label="sand/sand juxtaposition"),
         Patch(facecolor="#7F7F7F", edgecolor="#FFFFFF", hatch="....", label="sand/heterolith juxtaposition"),
         Line2D([], [], color=INK, lw=1.6, label=f"SGR {th:g} % (screening threshold)"),
-        Line2D([], [], color=INK, lw=0.6, label="SGR contours (%)"),
+        Line2D([], [], color=INK, lw=0.6, label="SGR contours (levels on the colour bar)"),
         Patch(facecolor="none", edgecolor=WINDOW_INK, label="sand-sand window (numbered: in table)"),
         Patch(facecolor=NO_DATA, edgecolor="#666666", label="slipped interval leaves the log"),
     ]
@@ -139,10 +164,11 @@ def draw_legend(ax, result) -> None:
 def log_page(result) -> list[Figure]:
     """Page 1: the logs, the triangle diagram and the riskiest windows."""
     fig = Figure(figsize=PAGE_SIZE_IN)
-    fig.suptitle(f"Fault-seal screening: {result.well.name}", x=0.015, ha="left", fontsize=15,
-                 fontweight="bold")
-    gs = fig.add_gridspec(1, 5, left=0.045, right=0.985, top=0.92, bottom=0.17,
-                          width_ratios=[1.0, 1.0, 0.45, 4.2, 3.6], wspace=0.08)
+    fig.text(0.015, 0.975, f"Fault-seal screening: {result.well.name}", ha="left", va="top",
+             fontsize=15, fontweight="bold", parse_math=False)
+    has_tops = getattr(result, "tops", None) is not None and len(result.tops) > 0
+    gs = fig.add_gridspec(1, 5, left=0.045, right=0.985, top=0.9, bottom=0.2,
+                          width_ratios=[1.0, 1.0, 0.95 if has_tops else 0.45, 4.0, 3.6], wspace=0.1)
     ax_gr = fig.add_subplot(gs[0])
     ax_vsh = fig.add_subplot(gs[1], sharey=ax_gr)
     ax_lith = fig.add_subplot(gs[2], sharey=ax_gr)
@@ -157,10 +183,10 @@ def log_page(result) -> list[Figure]:
     n_cross = int((~result.windows["self_juxtaposed"]).sum())
     title = "Sand-sand windows, lowest SGR first"
     if n_cross > len(numbers):
-        title += f" ({len(numbers)} of {n_cross}; all overleaf)"
+        title += f" ({len(numbers)} of {n_cross}; more overleaf)"
     draw_window_table(fig.add_subplot(right[1]),
                       window_rows(result.windows, numbers, result.settings.capacity.sgr_threshold_pct,
-                                  result.settings.capacity.length_unit),
+                                  result.settings.capacity.length_unit, tops=getattr(result, "tops", None)),
                       title)
     draw_footer(fig, result)
     return [fig]

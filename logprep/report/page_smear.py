@@ -24,13 +24,17 @@ CSP_CONTOURS_M = (1.0, 10.0, 100.0)
 
 
 def _outline_windows(ax, windows, throw_max_m, ink):
+    """The windows between different sands outlined, as one collection."""
+    from matplotlib.collections import PolyCollection
+
     if windows is None or not len(windows):
         return
-    for w in windows[~windows["self_juxtaposed"]].itertuples():
-        poly = contact_polygon(w.footwall_top_m, w.footwall_base_m, w.hangingwall_top_m,
-                               w.hangingwall_base_m, 0.0, throw_max_m)
-        if len(poly) >= 3:
-            ax.fill(poly[:, 0], poly[:, 1], fill=False, ec=ink, lw=0.6)
+    polys = [contact_polygon(w.footwall_top_m, w.footwall_base_m, w.hangingwall_top_m,
+                             w.hangingwall_base_m, 0.0, throw_max_m)
+             for w in windows[~windows["self_juxtaposed"]].itertuples()]
+    polys = [p for p in polys if len(p) >= 3]
+    if polys:
+        ax.add_collection(PolyCollection(polys, facecolors="none", edgecolors=ink, linewidths=0.6))
 
 
 def _image(ax, grid, values, cmap, norm):
@@ -66,10 +70,11 @@ def smear_page(result) -> list[Figure]:
     depth, throw, ssf, im = _image(ax1, grid, grid.extra["ssf"], "viridis",
                                    matplotlib.colors.Normalize(*SSF_RANGE))
     finite = np.where(np.isfinite(ssf), ssf, np.where(np.isinf(ssf), 1e6, np.nan))
-    draw_contours(ax1, throw, depth, finite, SSF_CONTOURS, "SSF %g", colors=INK,
-                  linewidths=[0.7, 1.6])
+    cs1 = draw_contours(ax1, throw, depth, finite, SSF_CONTOURS, colors=INK, linewidths=[0.7, 1.6])
     _outline_windows(ax1, result.windows, throw_max, WINDOW_INK)
     cb = fig.colorbar(im, ax=ax1, orientation="horizontal", fraction=0.04, pad=0.08, extend="max")
+    if cs1 is not None:
+        cb.add_lines(cs1)  # the contour levels, marked on the bar instead of along the lines
     cb.set_label("SSF = throw / thickness of the thickest shale bed passed (bold: 7, above which "
                  "smears may be incomplete; top colour also where no shale has passed)", fontsize=7)
     ax1.set_title("Shale smear factor (Lindsay et al. 1993)", loc="left", fontsize=10)
@@ -78,9 +83,11 @@ def smear_page(result) -> list[Figure]:
 
     depth, throw, csp, im = _image(ax2, grid, np.maximum(grid.extra["csp_m"], CSP_RANGE_M[0]),
                                    "viridis", LogNorm(*CSP_RANGE_M))
-    draw_contours(ax2, throw, depth, csp, CSP_CONTOURS_M, "%g m", colors=INK, linewidths=0.7)
+    cs2 = draw_contours(ax2, throw, depth, csp, CSP_CONTOURS_M, colors=INK, linewidths=0.7)
     _outline_windows(ax2, result.windows, throw_max, WINDOW_INK)
     cb = fig.colorbar(im, ax=ax2, orientation="horizontal", fraction=0.04, pad=0.08, extend="both")
+    if cs2 is not None:
+        cb.add_lines(cs2)
     cb.set_label("CSP = sum of thickness^2 / smear distance over the shale beds passed, from "
                  "both cut-offs (m; bottom colour also where none has passed)", fontsize=7)
     ax2.set_title("Clay smear potential (Bouvier et al. 1989; Fulljames et al. 1997)", loc="left",

@@ -14,6 +14,8 @@ from logprep import __version__
 from logprep.report.caution import CAUTION
 
 LEAK_COLOUR, SEAL_COLOUR, INK = "#D55E00", "#0072B2", "#222222"
+VERDICT_BAR_COLOURS = {"leak": LEAK_COLOUR, "uncertain": "#E69F00", "seal": SEAL_COLOUR}
+"""Bar colour of each reference verdict (Okabe & Ito 2008: vermilion, orange, blue)."""
 PAGE_SIZE_IN = (16.5, 11.7)  # A3 landscape, as the screening sheet
 MAX_BED_PANELS = 6
 
@@ -98,7 +100,8 @@ def sweep_figure(sweep, stable) -> Figure:
         cb2.ax.axhline(ref.capacity.sgr_threshold_pct, color=LEAK_COLOUR, lw=2)
     fig.text(0.05, 0.925, "Row 1: windows whose leak / no-leak verdict differs from the reference "
              "(reference windows that flip, plus new leaking windows; 0 = stable).\nRow 2: lowest SGR over windows between different sands; "
-             f"below {ref.capacity.sgr_threshold_pct:g} % (red mark on the scale) a window leaks. "
+             f"verdict leak below {ref.capacity.sgr_leak_pct:g} %, seal from "
+             f"{ref.capacity.sgr_threshold_pct:g} % (red mark on the scale), uncertain between. "
              "Framed cell: the reference setting.", fontsize=8.5)
 
     ax = fig.add_subplot(gs[2, : max(nb - 2, 1)])
@@ -106,10 +109,10 @@ def sweep_figure(sweep, stable) -> Figure:
     if len(w):
         x = np.arange(len(w))
         ax.bar(x, 100 * w["flipped_fraction"], width=0.85,
-               color=[LEAK_COLOUR if v == "leak" else SEAL_COLOUR for v in w["verdict"]])
+               color=[VERDICT_BAR_COLOURS.get(v, SEAL_COLOUR) for v in w["verdict"]])
         ax.set_xlim(-0.6, len(w) - 0.4)
         step = max(1, len(w) // 40)
-        ax.set_xticks(x[::step], list(w["window"])[::step], fontsize=6, rotation=90)
+        ax.set_xticks(x[::step], [f"#{k}" for k in w["window"]][::step], fontsize=6, rotation=90)
         if not w["flipped_fraction"].any():
             ax.text(0.5, 0.6, "no reference window flips in any setting\n(row 1 also counts "
                     "new leaks at sands the reference does not have)",
@@ -119,8 +122,9 @@ def sweep_figure(sweep, stable) -> Figure:
                 ha="center", va="center", transform=ax.transAxes)
     ax.set_ylim(0, 100)
     ax.set_ylabel("settings where it flips (%)", fontsize=8)
-    ax.set_title("Each reference window (by footwall depth): share of settings where its verdict "
-                 "flips; colour = reference verdict (red leak, blue seal)", fontsize=9, loc="left")
+    ax.set_title("Each reference window (numbers as on the sheet, by footwall depth): share of "
+                 "settings where it turns leak or stops leaking; colour = reference verdict "
+                 "(vermilion leak, orange uncertain, blue seal)", fontsize=9, loc="left")
 
     tx = fig.add_subplot(gs[2, max(nb - 2, 1):])
     tx.set_axis_off()

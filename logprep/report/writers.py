@@ -25,13 +25,33 @@ SUMMARY_COLUMNS = ["well", "source", "status", "message", "layers", "sand_sand_w
                    "min_window_sgr_pct", "folder"]
 
 
+def current_umask() -> int:
+    """The process's file-mode creation mask, read without changing it where the system
+    says it (Linux ``/proc/self/status``); elsewhere set and restored at once."""
+    try:
+        with open("/proc/self/status", encoding="ascii") as f:
+            for line in f:
+                if line.startswith("Umask:"):
+                    return int(line.split()[1], 8)
+    except (OSError, ValueError, IndexError):
+        pass
+    mask = os.umask(0o022)
+    os.umask(mask)
+    return mask
+
+
 def write_bytes_atomic(path: Path, data: bytes) -> None:
-    """Write ``data`` to ``path`` through a temporary file in the same folder."""
+    """Write ``data`` to ``path`` through a temporary file in the same folder.
+
+    The file gets the mode a plain ``open(path, "w")`` would give (``0o666`` less the
+    umask: 0644 under the usual 022), not the owner-only mode of a temporary file, so
+    colleagues can read results on a shared drive."""
     path = Path(path)
     try:
         path.parent.mkdir(parents=True, exist_ok=True)
         fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=path.parent)
         try:
+            os.fchmod(fd, 0o666 & ~current_umask())
             with os.fdopen(fd, "wb") as f:
                 f.write(data)
             os.replace(tmp, path)
@@ -82,16 +102,22 @@ def pdf_bytes(figures) -> bytes:
 
 
 def png_bytes(figure, dpi: int = 110) -> bytes:
+    """A PNG of one Figure.  Glyph hinting is off, so the advance widths of fixed-width text
+    are exact at any resolution and table columns meet their rules as in the PDF."""
+    import matplotlib
+
     buf = io.BytesIO()
     FigureCanvasAgg(figure)
-    with _missing_glyphs_quiet():
+    with _missing_glyphs_quiet(), matplotlib.rc_context({"text.hinting": "no_hinting",
+                                                         "text.hinting_factor": 1}):
         figure.savefig(buf, format="png", dpi=dpi)
     return buf.getvalue()
 
 
 _UNSAFE = re.compile(r"[^A-Za-z0-9._-]+")
 
-RESERVED_NAMES = ("summary.csv", "pairs_summary.csv", "logprep-settings.toml")
+RESERVED_NAMES = ("summary.csv", "pairs_summary.csv", "logprep-settings.toml", "overview.html",
+                  "overview.pdf")
 """Files a run writes at the top of its output folder: no well folder may take their name."""
 
 
@@ -107,9 +133,20 @@ def folder_name(source: str | Path, taken: set[str]) -> str:
     return name
 
 
+def with_window_numbers(windows: pd.DataFrame) -> pd.DataFrame:
+    """The windows with a ``window`` column (1, 2, ... in row order) right after the
+    contract columns: the number each window carries on the sheet, in ``logprep tune``
+    (``w<k>``) and in the notebook."""
+    out = windows.reset_index(drop=True)
+    out = out.drop(columns=["window"], errors="ignore")
+    at = min(len(WINDOW_COLUMNS), len(out.columns))
+    out.insert(at, "window", range(1, len(out) + 1))
+    return out
+
+
 def well_tables(result) -> dict[str, pd.DataFrame]:
     """The machine-readable tables of one well, by file name."""
-    windows = result.windows.copy()
+    windows = with_window_numbers(result.windows)
     extra = [c for c in windows.columns if c not in WINDOW_COLUMNS]
     layers = result.layers.to_frame()
     inp = result.settings.input
@@ -138,7 +175,14 @@ def render_well(result, sheet_builder=None) -> dict[str, bytes]:
         files["sheet.pdf"] = pdf_bytes(pages)
         files["sheet.png"] = png_bytes(pages[0])
     files["curves.las"] = las_bytes(result)
+    files["notes.txt"] = notes_bytes(result.notes)
     return files
+
+
+def notes_bytes(notes) -> bytes:
+    """The notes of a well (the sheet's ``Notes:`` line), one a line, as ``notes.txt``:
+    what was assumed, left out or converted.  The field overview lists them per well."""
+    return "".join(f"{n}\n" for n in notes if n).encode("utf-8")
 
 
 def write_well(files: dict[str, bytes], well_dir: Path) -> None:

@@ -18,7 +18,12 @@ import pandas as pd
 
 from logprep.io.csvtable import parse_number, read_csv_table
 from logprep.errors import LogprepError
-from logprep.report.writers import csv_bytes, folder_name, pdf_bytes, png_bytes, write_bytes_atomic
+from logprep.fault.envelope import depth_datum
+from logprep.fault.pair_capacity import pair_seal_capacity_table
+from logprep.fault.settings import capacity_params
+from logprep.report.writers import (
+    csv_bytes, folder_name, pdf_bytes, png_bytes, with_window_numbers, write_bytes_atomic,
+)
 from logprep.io.tops import well_key
 from logprep.fault.twowell import (
     PairError, check_hanging_wall_down, marker_shift_m, two_well_field, two_well_windows,
@@ -62,47 +67,20 @@ def _find(name: str, files: list[Path], names: dict[Path, str]) -> Path:
     raise PairError(f"well {name!r} not found among the LAS files given")
 
 
-def pair_sheet(fw, hw, shift_m: float, windows: pd.DataFrame, grid, settings, title: str):
-    """One page: both blocked columns on the footwall's depth frame and the two-well
-    triangle diagram with the windows outlined."""
-    from matplotlib.figure import Figure
-    from matplotlib.patches import Patch
-
-    from logprep.report.caution import CAUTION
-    from logprep.report.draw import (LITHOLOGY_COLOURS, PAGE_SIZE_IN, draw_field, draw_sgr_colourbar)
-
-    fig = Figure(figsize=PAGE_SIZE_IN)
-    fig.suptitle(title, x=0.015, ha="left", fontsize=14, fontweight="bold")
-    gs = fig.add_gridspec(1, 3, left=0.05, right=0.985, top=0.87, bottom=0.14,
-                          width_ratios=[0.5, 0.5, 5.0], wspace=0.06)
-    ax_f = fig.add_subplot(gs[0])
-    ax_h = fig.add_subplot(gs[1], sharey=ax_f)
-    ax_t = fig.add_subplot(gs[2], sharey=ax_f)
-    for ax, L, dz, label in ((ax_f, fw.layers, 0.0, "footwall\nlayers"),
-                             (ax_h, hw.layers, -shift_m, "hanging wall\nat zero throw")):
-        for top, base, lith in zip(L.top_m, L.base_m, L.lithology):
-            ax.axhspan(top + dz, base + dz, color=LITHOLOGY_COLOURS[lith], lw=0)
-        ax.set_xticks([])
-        ax.set_xlabel(label, fontsize=8)
-    ax_h.tick_params(labelleft=False)
-    ax_f.set_ylabel(f"Footwall depth (m, {fw.depth_reference})")
-    windows = windows.assign(self_juxtaposed=False)
-    im = draw_field(ax_t, grid, threshold_pct=settings.capacity.sgr_threshold_pct,
-                    throw_max_m=settings.field.throw_max_m, windows=windows, hw_shift_m=shift_m)
-    draw_sgr_colourbar(ax_t, im)
-    ax_t.tick_params(labelleft=False)
-    ax_t.set_xlabel("Throw of the tie horizon (m); normal fault, hanging wall down")
-    ax_t.set_title(f"Two-well triangle diagram: SGR ({grid.source}), sand-sand windows outlined",
-                   fontsize=9, loc="left", pad=14)
-    handles = [Patch(facecolor=c, edgecolor="#666666", label=n) for n, c in LITHOLOGY_COLOURS.items()]
-    ax_t.legend(handles=handles, loc="lower left", fontsize=7, framealpha=0.9)
-    fig.text(0.015, 0.07, f"Footwall {fw.well.source} (sha256 {fw.well.sha256[:12]}...); hanging wall "
-             f"{hw.well.source} (sha256 {hw.well.sha256[:12]}...); hanging-wall depth = footwall depth "
-             f"- throw + {shift_m:.2f} m.  Settings as for the single wells.", fontsize=7,
-             family="monospace")
-    fig.text(0.015, 0.012, "CAUTION: " + CAUTION, fontsize=8, va="bottom", wrap=True,
-             color="#7A1F00", bbox=dict(facecolor="#FFF4E5", edgecolor="#D55E00", pad=4))
-    return fig
+def pair_windows(fw, hw, shift_m: float, settings) -> pd.DataFrame:
+    """The windows of a pair with their seal-capacity columns and verdicts (as one well's),
+    burial taken on the footwall well's depths and datum; ``self_juxtaposed`` is False
+    throughout (two wells: a sand never faces itself)."""
+    windows = two_well_windows(fw.layers, hw.layers, shift_m, settings.field.throw_max_m,
+                               settings.field.pair_slip_source)
+    datum, _ = depth_datum(fw.well)
+    table = pair_seal_capacity_table(windows, fw.layers, hw.layers, shift_m,
+                                     capacity_params(settings.capacity, settings.fault_rock),
+                                     datum_m=datum or 0.0, slip_source=settings.field.pair_slip_source,
+                                     length_unit=settings.capacity.length_unit)
+    at = table.columns.get_loc("max_contact_m")
+    table.insert(at, "self_juxtaposed", False)
+    return table
 
 
 def screen_pairs(
@@ -151,17 +129,19 @@ def screen_pairs(
             else:
                 shift = parse_number(p.shift_m)
             check_hanging_wall_down(shift, p.footwall, p.hangingwall, p.marker or None)
-            windows = two_well_windows(fw.layers, hw.layers, shift, settings.field.throw_max_m,
-                                       settings.field.pair_slip_source)
+            windows = pair_windows(fw, hw, shift, settings)
             step = settings.field.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
             grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=settings.field.throw_max_m,
                                   throw_step_m=settings.field.field_throw_step_m, depth_step_m=step,
                                   slip_source=settings.field.pair_slip_source)
-            title = f"Two-well screening: {fw.well.name} (footwall) / {hw.well.name} (hanging wall)"
-            files_out = {"juxtapositions.csv": csv_bytes(windows), "sgr_field.npz": grid.npz_bytes()}
+            files_out = {"juxtapositions.csv": csv_bytes(with_window_numbers(windows)),
+                         "sgr_field.npz": grid.npz_bytes()}
             if sheets:
-                page = pair_sheet(fw, hw, shift, windows, grid, settings, title)
-                files_out.update({"sheet.pdf": pdf_bytes([page]), "sheet.png": png_bytes(page)})
+                from logprep.report.pair_sheet import PairScreening, build_pair_sheet
+
+                pages = build_pair_sheet(PairScreening(fw, hw, shift, p.marker or "", windows, grid,
+                                                       settings))
+                files_out.update({"sheet.pdf": pdf_bytes(pages), "sheet.png": png_bytes(pages[0])})
             folder = folder_name(f"pair_{p.footwall}_{p.hangingwall}", taken)
             for fname, data in files_out.items():
                 write_bytes_atomic(out / folder / fname, data)

@@ -8,12 +8,13 @@ and the minimum bed thickness, and see where each window's verdict holds and whe
 The clay volume curve is computed once; each setting only re-blocks it (the changepoint
 search is also remembered per minimum bed) and recomputes the windows.
 
-Verdict of a window (the screening rule, with the SGR threshold in use): ``leak`` when
-SGR falls below the threshold somewhere in the window, ``seal`` when it stays at or above
-it.  To follow a window of the reference setting through other settings, its area of the
-triangle diagram (footwall depth x throw) is kept fixed and asked, for each setting: does
-any sand face sand there with SGR below the threshold (``leak``), only at or above it
-(``seal``), or does no sand face sand there at all (``apart``)?  The SGR extremes over each
+Verdict of a window: the sheet's words (:data:`logprep.fault.capacity.VERDICTS`) from its
+lowest SGR, ``leak`` below ``sgr_leak_pct``, ``seal`` from ``sgr_threshold_pct`` up,
+``uncertain`` between.  Windows are numbered as on the sheet and in ``juxtapositions.csv``
+(``w24`` here is the sheet's ``#24``).  To follow a window of the reference setting through
+other settings, its area of the triangle diagram (footwall depth x throw) is kept fixed and
+asked, for each setting: what is the lowest SGR where a sand faces sand there (its verdict
+word), or does no sand face sand there at all (``apart``)?  The SGR extremes over each
 overlap are exact, as in :func:`logprep.fault.juxtaposition.sand_windows`.
 """
 
@@ -27,6 +28,7 @@ import numpy as np
 import pandas as pd
 
 from logprep.layers.blocking import block_with_boundaries, net_to_gross
+from logprep.fault.capacity import verdict
 from logprep.errors import SettingsError
 from logprep.fault.juxtaposition import _sgr_extremes, cumulative_clay, sand_windows
 from logprep.model import Layers
@@ -40,7 +42,9 @@ DEFAULT_SAND_CUTOFFS = (0.20, 0.25, 0.30, 0.35, 0.40, 0.45, 0.50)
 DEFAULT_SHALE_CUTOFFS = (0.50, 0.55, 0.60, 0.65, 0.70, 0.75, 0.80)
 DEFAULT_MIN_BEDS_M = (0.5, 1.0, 2.0, 4.0)
 
-VERDICTS = ("leak", "seal", "apart")
+VERDICTS = ("leak", "uncertain", "seal", "apart")
+"""Words of a window in the sweep: the sheet's three verdicts, or ``apart`` (no sand faces
+sand over the window's area at that setting)."""
 
 SWEEP_COLUMNS = [
     "sand_cutoff", "shale_cutoff", "min_bed_m", "is_reference", "layers", "sands",
@@ -103,15 +107,18 @@ class Sweep:
     reference : WellScreening
         The screening at the reference settings.
     table : DataFrame
-        One row per setting (:data:`SWEEP_COLUMNS`, then ``w1``, ``w2``... the verdict of
-        each reference window).  ``verdicts_flipped`` counts reference windows that leak
+        One row per setting (:data:`SWEEP_COLUMNS`, then one ``w<k>`` column per
+        reference window, ``k`` its number on the sheet and in ``juxtapositions.csv``,
+        holding its verdict word).  ``leak_windows`` counts windows with verdict ``leak``,
+        as the sheet does.  ``verdicts_flipped`` counts reference windows that leak
         here but not at the reference, or the other way round (``apart`` counts as not
         leaking: no sand faces sand), plus ``new_leak_windows``: windows of this setting
         that leak where nothing leaks at the reference (a sand the reference does not
         have, for example); ``windows_changed`` counts any change of a reference window's
         verdict, ``apart`` included.
     windows : DataFrame
-        The reference windows between different sands: ``window`` (``w<k>``), footwall and
+        The reference windows between different sands: ``window`` (the number on the
+        sheet and in ``juxtapositions.csv``), footwall and
         hanging-wall sand tops and bases (m), ``sgr_min_pct``, ``verdict`` at the reference,
         ``flipped_fraction``, the share of settings where its leak / no-leak verdict
         differs, and ``changed_fraction``, where its verdict differs at all.
@@ -137,14 +144,18 @@ def _window_arrays(w: pd.DataFrame) -> dict[str, np.ndarray]:
 
 
 def window_verdicts(ref_windows: pd.DataFrame, layers: Layers, windows: pd.DataFrame,
-                    sgr_threshold_pct: float) -> list[str]:
+                    sgr_threshold_pct: float, sgr_leak_pct: float | None = None) -> list[str]:
     """Verdict (:data:`VERDICTS`) over the area of each row of ``ref_windows`` under
-    another blocking (``layers`` and its ``windows``, self-juxtaposed ones included).
+    another blocking (``layers`` and its ``windows``, self-juxtaposed ones included):
+    ``leak`` below ``sgr_leak_pct`` (the threshold itself when None: two words only),
+    ``seal`` from ``sgr_threshold_pct``, ``uncertain`` between, ``apart`` where no sand
+    faces sand.
 
     The overlap of two windows' areas is again a window-shaped area (footwall interval x
     hanging-wall interval x throws), inside which SGR of ``layers`` is linear-fractional;
     its exact minimum decides.
     """
+    leak_pct = sgr_threshold_pct if sgr_leak_pct is None else sgr_leak_pct
     if len(ref_windows) == 0:
         return []
     if len(windows) == 0:
@@ -165,7 +176,7 @@ def window_verdicts(ref_windows: pd.DataFrame, layers: Layers, windows: pd.DataF
         if js.size == 0:
             out.append("apart")
             continue
-        verdict = "seal"
+        lowest = np.inf
         for j in js:
             fi, hi = c["fw"][j], c["hw"][j]
             smin, _ = _sgr_extremes(
@@ -173,10 +184,10 @@ def window_verdicts(ref_windows: pd.DataFrame, layers: Layers, windows: pd.DataF
                 float(np.interp(a[i, j], bounds, clay)), float(np.interp(lo_h[i, j], bounds, clay)),
                 fi == hi, float(cap[i, j]),
             )
-            if smin < sgr_threshold_pct:
-                verdict = "leak"
-                break
-        out.append(verdict)
+            lowest = min(lowest, smin)
+            if lowest < leak_pct:
+                break  # no lower word than leak
+        out.append(str(verdict(lowest, leak_pct, sgr_threshold_pct)))
     return out
 
 
@@ -201,12 +212,14 @@ def sweep_screening(
         (min_beds_m, "minimum beds")))
     if min(beds) < 0 or min(sands) < 0 or max(shales) > 1:
         raise SettingsError("sweep: cut-offs must lie in 0-1 and minimum beds be >= 0 m")
-    thr = s.capacity.sgr_threshold_pct
+    thr, leak = s.capacity.sgr_threshold_pct, s.capacity.sgr_leak_pct
     forced = result.tops["top_m"].to_numpy(float) if s.layers.honour_tops and len(result.tops) else ()
-    ref_all = result.windows
-    ref = ref_all[~ref_all["self_juxtaposed"]].reset_index(drop=True)
-    names = [f"w{k + 1}" for k in range(len(ref))]
-    ref_verdict = ["leak" if x < thr else "seal" for x in ref["sgr_min_pct"]]
+    ref_all = result.windows.reset_index(drop=True)
+    cross_rows = np.flatnonzero(~ref_all["self_juxtaposed"].to_numpy(bool))
+    ref = ref_all.iloc[cross_rows].reset_index(drop=True)
+    numbers = [int(k) + 1 for k in cross_rows]  # the sheet's window numbers
+    names = [f"w{k}" for k in numbers]
+    ref_verdict = [str(v) for v in verdict(ref["sgr_min_pct"].to_numpy(float), leak, thr)]
 
     combos = [(s.layers.sand_cutoff, s.layers.shale_cutoff, s.layers.min_bed_m)]
     combos += [c for c in itertools.product(sands, shales, beds) if c[0] < c[1]]
@@ -224,9 +237,9 @@ def sweep_screening(
                                            filled=result.filled, **kw)
             windows = sand_windows(layers, s.field.throw_max_m)
         cross = windows[~windows["self_juxtaposed"]]
-        verdicts = window_verdicts(ref, layers, windows, thr)
-        leaking = cross[cross["sgr_min_pct"] < thr]
-        new_leaks = sum(v != "leak" for v in window_verdicts(leaking, result.layers, ref_all, thr))
+        verdicts = window_verdicts(ref, layers, windows, thr, leak)
+        leaking = cross[cross["sgr_min_pct"] < leak]
+        new_leaks = sum(v != "leak" for v in window_verdicts(leaking, result.layers, ref_all, thr, leak))
         flips = sum((v == "leak") != (r == "leak") for v, r in zip(verdicts, ref_verdict))
         row = {
             "sand_cutoff": sand, "shale_cutoff": shale, "min_bed_m": bed,
@@ -235,7 +248,7 @@ def sweep_screening(
             "net_to_gross": net_to_gross(layers),
             "sand_sand_windows": len(cross),
             "min_window_sgr_pct": float(cross["sgr_min_pct"].min()) if len(cross) else np.nan,
-            "leak_windows": int((cross["sgr_min_pct"] < thr).sum()),
+            "leak_windows": int((cross["sgr_min_pct"] < leak).sum()),
             "verdicts_flipped": flips + new_leaks,
             "new_leak_windows": new_leaks,
             "windows_changed": sum(v != r for v, r in zip(verdicts, ref_verdict)),
@@ -248,7 +261,7 @@ def sweep_screening(
     changed = got != want
     flipped = (got == "leak") != (want == "leak")
     win = pd.DataFrame({
-        "window": names,
+        "window": numbers,
         "footwall_top_m": ref["footwall_top_m"], "footwall_base_m": ref["footwall_base_m"],
         "hangingwall_top_m": ref["hangingwall_top_m"],
         "hangingwall_base_m": ref["hangingwall_base_m"],

@@ -1,0 +1,89 @@
+"""What a sheet costs: each well screened with its sheet against the same well tables-only
+(``--no-sheet``), measured in the same run, best of N.
+
+Targets: a well with its sheet costs at most 2x the same well tables-only on the bundled
+examples, and at most 3x on a 20,000-sample well with about 1,200 windows (made here,
+written to a temporary LAS file: invented sand-shale cycles, fixed random state).
+
+Run:  python bench/bench_sheet.py [--repeat N] [--no-big]
+"""
+
+from __future__ import annotations
+
+import argparse
+import re
+import tempfile
+from pathlib import Path
+
+import lasio
+import numpy as np
+from logprep.io.examples import example_logs_dir
+from logprep.run.batch import screen_one
+from logprep.run.pipeline import ScreenSettings
+from timing import best_time_s
+
+
+def big_well(path: Path, n: int = 20_000, step_m: float = 0.1524, seed: int = 7) -> Path:
+    """A 20,000-sample LAS file of invented sand-shale cycles (3-20 m beds)."""
+    rng = np.random.default_rng(seed)
+    depth = 1500.0 + step_m * np.arange(n)
+    gr = np.empty(n)
+    i = 0
+    sand = True
+    while i < n:
+        beds = int(rng.uniform(3.0, 20.0) / step_m)
+        level = rng.uniform(25, 45) if sand else rng.uniform(95, 130)
+        gr[i:i + beds] = level
+        i += beds
+        sand = not sand if rng.random() < 0.8 else sand
+    gr += rng.normal(0, 4, n)
+    las = lasio.LASFile()
+    las.well["WELL"].value = "BENCH-BIG"
+    las.append_curve("DEPT", depth, unit="M")
+    las.append_curve("GR", gr, unit="GAPI")
+    with open(path, "w") as f:
+        las.write(f, version=2.0)
+    return path
+
+
+def ratio(path: Path, settings: ScreenSettings, tops, repeat: int, out: Path) -> tuple[float, float, dict]:
+    tables = best_time_s(lambda: screen_one(path, "t", out, settings, tops, False), repeat)
+    sheet = best_time_s(lambda: screen_one(path, "s", out, settings, tops, True), repeat)
+    row = screen_one(path, "s", out, settings, tops, True)
+    return tables, sheet, row
+
+
+def main() -> None:
+    ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    ap.add_argument("--repeat", type=int, default=3)
+    ap.add_argument("--no-big", action="store_true", help="skip the 20,000-sample well")
+    args = ap.parse_args()
+    from logprep.io.tops import read_tops
+
+    demo = example_logs_dir()
+    settings = ScreenSettings(tops_file=str(demo / "tops.csv"), survey_dir=str(demo / "surveys"))
+    tops = read_tops(settings.tops_file)
+    print("seconds per well, best of", args.repeat, "; ratio = with sheet / tables only")
+    total_t = total_s = 0.0
+    with tempfile.TemporaryDirectory() as tmp:
+        out = Path(tmp)
+        for f in sorted(demo.glob("*.las")):
+            t, s, row = ratio(f, settings, tops, args.repeat, out)
+            total_t, total_s = total_t + t, total_s + s
+            pages = len(re.findall(rb"/Type\s*/Page[^s]", (out / "s" / "sheet.pdf").read_bytes()))
+            print(f"  {f.stem:<10} tables {t:6.2f}  sheet {s:6.2f}  ratio {s / t:5.2f}  "
+                  f"({row['sand_sand_windows']} windows, {pages} pages)")
+        print(f"  examples, all wells: ratio {total_s / total_t:.2f} (target <= 2)")
+        if not args.no_big:
+            big = big_well(out / "BENCH-BIG.las")
+            plain = ScreenSettings()
+            t, s, row = ratio(big, plain, None, max(1, args.repeat - 1), out)
+            n_rows = len((out / "s" / "juxtapositions.csv").read_text().splitlines()) - 1
+            pages = len(re.findall(rb"/Type\s*/Page[^s]", (out / "s" / "sheet.pdf").read_bytes()))
+            print(f"  20,000 samples: tables {t:6.2f}  sheet {s:6.2f}  ratio {s / t:5.2f} "
+                  f"(target <= 3; {row['sand_sand_windows']} windows between different sands, "
+                  f"{n_rows} rows, {pages} pages)")
+
+
+if __name__ == "__main__":
+    main()
