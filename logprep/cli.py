@@ -7,6 +7,7 @@ import sys
 import warnings
 
 from logprep import __version__
+from logprep.cli_conventions import fault_convention_options
 from logprep.errors import LogprepError
 
 # the science is imported only where a command or its options need it (fast --version)
@@ -65,15 +66,6 @@ def _fault_options(p: argparse.ArgumentParser, d) -> None:
                         f"(default: {d.field.field_depth_step_m})")
     g.add_argument("--field-throw-step", dest="field_throw_step_m", type=float, metavar="M",
                    help=f"throw spacing of the SGR field in metres (default: {d.field.field_throw_step_m})")
-    g.add_argument("--shale-clay-fraction", dest="shale_clay_fraction", type=float, metavar="FRACTION",
-                   help="clay fraction of pure shale: SGR, smear and fault rock use this x Vsh "
-                        f"(default: {d.field.shale_clay_fraction:g}, Vsh taken as clay)")
-    g.add_argument("--heterolith-reservoir-ntg", dest="heterolith_reservoir_ntg", type=float,
-                   metavar="FRACTION", help="also screen heteroliths with at least this net-to-gross "
-                                            "as reservoir (default: sands only)")
-    g.add_argument("--fault-dip", dest="fault_dip_deg", type=float, metavar="DEG",
-                   help="fault dip: displacement = throw / sin(dip) for fault rock, CSP along the "
-                        f"fault (default: {d.field.fault_dip_deg:g})")
 
 
 def _capacity_options(p: argparse.ArgumentParser, d) -> None:
@@ -96,9 +88,6 @@ def _capacity_options(p: argparse.ArgumentParser, d) -> None:
                    help=f"temperature at sea level for --co2-density-mode eos (default: {d.capacity.surface_temp_c:g})")
     g.add_argument("--geothermal-gradient", dest="geothermal_gradient_c_per_km", type=float,
                    metavar="DEGC/KM", help=f"geothermal gradient (default: {d.capacity.geothermal_gradient_c_per_km:g})")
-    g.add_argument("--max-burial", dest="max_burial_m", type=float, metavar="M",
-                   help="maximum burial depth for the pressure envelope (default: each contact's "
-                        "depth below sea level, or as logged when the header has no elevation)")
     g.add_argument("--envelope-scale", dest="envelope_sgr_scale_pct", type=float, metavar="PCT",
                    help=f"SGR per decade of fault-zone pressure (default: {d.capacity.envelope_sgr_scale_pct:g})")
     g.add_argument("--envelope-bounds", dest="envelope_class_bounds_m", metavar="M,M",
@@ -116,24 +105,6 @@ def _capacity_options(p: argparse.ArgumentParser, d) -> None:
                    help=f"cell length for the transmissibility multiplier (default: {d.fault_rock.cell_length_m:g})")
     g.add_argument("--matrix-perm", dest="matrix_perm_md", type=float, metavar="MD",
                    help=f"matrix permeability for the transmissibility multiplier (default: {d.fault_rock.matrix_perm_md:g})")
-    g.add_argument("--water-depth", dest="water_depth_m", type=float, metavar="M",
-                   help="water depth: burial is measured below the sea floor (default: from the "
-                        "LAS header, else the surface at sea level)")
-    g.add_argument("--ground-elevation", dest="ground_elevation_m", type=float, metavar="M",
-                   help="ground elevation above sea level onshore (default: EGL from the header)")
-    g.add_argument("--uplift", dest="uplift_m", type=float, metavar="M",
-                   help=f"section removed since maximum burial, added to burial (default: {d.capacity.uplift_m:g})")
-    g.add_argument("--closure", dest="closure_m", type=float, metavar="M",
-                   help="structural closure that caps every column (default: none; columns over "
-                        f"{d.capacity.unconstrained_column_m:g} m flagged unconstrained)")
-    g.add_argument("--unconstrained-column", dest="unconstrained_column_m", type=float, metavar="M",
-                   help=f"column flagged unconstrained without a closure (default: {d.capacity.unconstrained_column_m:g})")
-    for opt, dest, unit in (("--calibration-ift", "calibration_ift_mn_m", "MN/M"),
-                            ("--calibration-contact-angle", "calibration_contact_deg", "DEG"),
-                            ("--co2-ift", "co2_ift_mn_m", "MN/M"),
-                            ("--co2-contact-angle", "co2_contact_deg", "DEG")):
-        g.add_argument(opt, dest=dest, type=float, metavar=unit,
-                       help=f"for the CO2-brine capillary pressure (default: {getattr(d.capacity, dest):g})")
     g.add_argument("--faulting-depth", dest="faulting_depth_m", type=float, metavar="M",
                    help="depth at the time of faulting, for the Sperrevik permeability (default: burial depth)")
 
@@ -172,9 +143,6 @@ def _survey_options(p: argparse.ArgumentParser, d) -> None:
     g.add_argument("--bed-dip", dest="bed_dip_deg", type=float, metavar="DEG",
                    help="bed dip in degrees for the true stratigraphic thickness tst_m in "
                         f"layers.csv (default: {d.input.bed_dip_deg})")
-    g.add_argument("--bed-dip-azimuth", dest="bed_dip_azimuth_deg", type=float, metavar="DEG",
-                   help="direction of that dip, degrees from north; with a survey, tst_m follows "
-                        f"the well's direction against it (default: {d.input.bed_dip_azimuth_deg})")
 
 
 def _pair_options(p: argparse.ArgumentParser, d) -> None:
@@ -187,7 +155,7 @@ def _pair_options(p: argparse.ArgumentParser, d) -> None:
 
 
 SETTINGS_OPTION_GROUPS = [_clay_options, _clay_quality_options, _blocking_options, _fault_options,
-                          _capacity_options, _survey_options, _pair_options]
+                          _capacity_options, fault_convention_options, _survey_options, _pair_options]
 """Each adds one group of options whose ``dest`` is a :class:`ScreenSettings` field and
 whose default is None (not given); add a function here for a new group."""
 
