@@ -5,10 +5,13 @@ from __future__ import annotations
 import argparse
 import sys
 import warnings
+from pathlib import Path
 
 from logprep import __version__
+from logprep.cli_rock import print_tune_summary, rock_options, tune_rock_options
 from logprep.cli_conventions import fault_convention_options
 from logprep.errors import LogprepError
+from logprep.run.fault_options import add_fault_options, faults_after_batch, faults_before_batch
 
 # the science is imported only where a command or its options need it (fast --version)
 
@@ -154,8 +157,9 @@ def _pair_options(p: argparse.ArgumentParser, d) -> None:
                         f"hanging-wall well, or average the two (default: {d.field.pair_slip_source})")
 
 
-SETTINGS_OPTION_GROUPS = [_clay_options, _clay_quality_options, _blocking_options, _fault_options,
-                          _capacity_options, fault_convention_options, _survey_options, _pair_options]
+SETTINGS_OPTION_GROUPS = [_clay_options, _clay_quality_options, rock_options, _blocking_options,
+                          _fault_options, _capacity_options, fault_convention_options,
+                          _survey_options, _pair_options]
 """Each adds one group of options whose ``dest`` is a :class:`ScreenSettings` field and
 whose default is None (not given); add a function here for a new group."""
 
@@ -243,12 +247,13 @@ def cmd_screen(args) -> int:
         from logprep.io.locations import read_locations
 
         read_locations(args.locations)  # likewise a bad locations file
+    faults = faults_before_batch(args, paths, settings)
     report = screen_paths(
         paths, args.out, settings,
         on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
         progress=_progress(sys.stderr),
         jobs=args.jobs,
-        sheets=not args.no_sheet,
+        sheets=not args.no_sheet, **faults.batch_kwargs,
     )
     for msg in report.warnings:
         print(f"warning: {msg}", file=sys.stderr)
@@ -266,6 +271,7 @@ def cmd_screen(args) -> int:
         print(f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed; "
               f"summary {args.out}/pairs_summary.csv")
         failed = failed or bad > 0
+    failed = faults_after_batch(args, faults, settings) or failed
     from logprep.report.overview_files import write_overview
 
     written = write_overview(args.out, args.locations)
@@ -274,8 +280,6 @@ def cmd_screen(args) -> int:
 
 
 def cmd_overview(args) -> int:
-    from pathlib import Path
-
     from logprep.report.overview_files import write_overview
 
     out = Path(args.out_dir)
@@ -304,12 +308,9 @@ def cmd_tune(args) -> int:
         sand_cutoffs=ranges.get("sand_sweep", DEFAULT_SAND_CUTOFFS),
         shale_cutoffs=ranges.get("shale_sweep", DEFAULT_SHALE_CUTOFFS),
         min_beds_m=ranges.get("bed_sweep", DEFAULT_MIN_BEDS_M),
+        descriptions=args.rock_file, label_curve=args.label_curve,
     )
-    paths = write_sweep(sweep, args.out)
-    t = sweep.table
-    print(f"{sweep.reference.well.name}: {len(t) - 1} settings swept; "
-          f"{int((t['verdicts_flipped'] == 0).sum()) - 1} keep every window verdict of the reference; "
-          f"table {paths['tune.csv']}, figure {paths['tune.pdf']}")
+    print_tune_summary(sweep, write_sweep(sweep, args.out))
     return EXIT_OK
 
 
@@ -342,6 +343,7 @@ def build_parser() -> argparse.ArgumentParser:
     p.add_argument("--pairs", metavar="FILE",
                    help="also screen well pairs across a fault: CSV of footwall, hangingwall and "
                         "marker (a top in both wells, needs --tops) or shift_m; one folder per pair")
+    add_fault_options(p)
     _add_locations_option(p)
     _add_screen_options(p)
     p.set_defaults(func=cmd_screen)
@@ -373,6 +375,7 @@ def build_parser() -> argparse.ArgumentParser:
                    help="shale cut-offs to try (default: 0.5:0.8:0.05)")
     p.add_argument("--bed-sweep", dest="bed_sweep", metavar="RANGE",
                    help="minimum bed thicknesses to try, metres (default: 0.5,1,2,4)")
+    tune_rock_options(p)
     _add_config_option(p)
     _add_screen_options(p)
     p.set_defaults(func=cmd_tune)

@@ -15,7 +15,17 @@ import numpy as np
 import pandas as pd
 
 LITHOLOGIES = ("sand", "heterolith", "shale")
-"""Layer classes, from clean to clay-rich.  Their index is the lithology code."""
+"""Clay-volume layer classes, from clean to clay-rich (the juxtaposition roles)."""
+
+ROCK_CLASSES = ("limestone", "dolomite", "coal", "anhydrite", "halite", "tuff")
+"""Rock classes recognised beyond sand and shale (see :mod:`logprep.clay.lithology`)."""
+
+NO_DATA = "no data"
+"""Layer class of an interval whose logs cannot tell the rock (see
+:mod:`logprep.clay.holecheck`)."""
+
+LAYER_CLASSES = LITHOLOGIES + ROCK_CLASSES + (NO_DATA,)
+"""Every name a layer's ``lithology`` may take; the index is the ``class_code``."""
 
 
 def _frozen(a) -> np.ndarray:
@@ -93,7 +103,11 @@ class Layers:
     ``filled_fraction`` is the share of each layer's thickness whose Vsh was interpolated
     across missing samples (0 where every sample was measured).  ``net_to_gross`` is the
     share of each layer's thickness in samples classed sand by the cut-offs (NaN where the
-    blocking method did not record it).
+    blocking method did not record it).  ``lithology`` may also hold a rock class or
+    ``no data`` (:data:`LAYER_CLASSES`).  ``reservoir`` says which layers count as
+    reservoir (default: the ``sand`` layers); ``unusable_fraction`` and
+    ``flagged_fraction`` are the shares of each layer's samples that are unusable (bad
+    hole, long gap, top hole, QC) and that carry any flag at all.
     """
 
     top_m: np.ndarray
@@ -102,6 +116,9 @@ class Layers:
     lithology: tuple[str, ...]
     filled_fraction: np.ndarray | None = None
     net_to_gross: np.ndarray | None = None
+    reservoir: np.ndarray | None = None
+    unusable_fraction: np.ndarray | None = None
+    flagged_fraction: np.ndarray | None = None
 
     def __post_init__(self) -> None:
         object.__setattr__(self, "top_m", _frozen(self.top_m))
@@ -113,12 +130,20 @@ class Layers:
         ntg = np.full(len(self.top_m), np.nan) if self.net_to_gross is None else self.net_to_gross
         object.__setattr__(self, "net_to_gross", _frozen(ntg))
         n = len(self.top_m)
+        res = (np.array([x == "sand" for x in self.lithology], dtype=bool)
+               if self.reservoir is None else np.array(self.reservoir, dtype=bool, copy=True))
+        res.setflags(write=False)
+        object.__setattr__(self, "reservoir", res)
+        for name in ("unusable_fraction", "flagged_fraction"):
+            v = getattr(self, name)
+            object.__setattr__(self, name, _frozen(np.zeros(n) if v is None else v))
         if not (len(self.base_m) == len(self.vsh) == len(self.lithology) == n
-                == len(self.filled_fraction) == len(self.net_to_gross)):
+                == len(self.filled_fraction) == len(self.net_to_gross) == len(self.reservoir)
+                == len(self.unusable_fraction) == len(self.flagged_fraction)):
             raise ValueError("Layers: arrays must have one entry per layer")
-        bad = set(self.lithology) - set(LITHOLOGIES)
+        bad = set(self.lithology) - set(LAYER_CLASSES)
         if bad:
-            raise ValueError(f"Layers: unknown lithology {sorted(bad)}; use {LITHOLOGIES}")
+            raise ValueError(f"Layers: unknown lithology {sorted(bad)}; use {LAYER_CLASSES}")
 
     def __len__(self) -> int:
         return len(self.top_m)
@@ -129,8 +154,19 @@ class Layers:
 
     @property
     def lithology_code(self) -> np.ndarray:
-        """Lithology as integers: index into :data:`LITHOLOGIES`."""
-        return np.array([LITHOLOGIES.index(x) for x in self.lithology], dtype=np.int8)
+        """Juxtaposition role as integers, an index into :data:`LITHOLOGIES`: 0 for a
+        reservoir layer, 1 for heterolith and ``no data`` (unknown), 2 for shale and the
+        non-reservoir rock classes (limestone, coal, ... : not sand, so not a leak path)."""
+        code = np.array([LITHOLOGIES.index(x) if x in LITHOLOGIES else (1 if x == NO_DATA else 2)
+                         for x in self.lithology], dtype=np.int8)
+        code[(code == 0) & ~self.reservoir] = 1  # a sand not counted as reservoir
+        code[self.reservoir] = 0
+        return code
+
+    @property
+    def class_code(self) -> np.ndarray:
+        """Lithology as integers: index into :data:`LAYER_CLASSES`."""
+        return np.array([LAYER_CLASSES.index(x) for x in self.lithology], dtype=np.int8)
 
     def to_frame(self) -> pd.DataFrame:
         """The ``layers.csv`` table."""
@@ -143,5 +179,8 @@ class Layers:
                 "lithology": list(self.lithology),
                 "filled_fraction": self.filled_fraction,
                 "net_to_gross": self.net_to_gross,
+                "reservoir": self.reservoir,
+                "unusable_fraction": self.unusable_fraction,
+                "flagged_fraction": self.flagged_fraction,
             }
         )

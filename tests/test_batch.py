@@ -42,7 +42,7 @@ def test_cli_no_sheet_and_jobs(tmp_path, example_dir):
 
 def test_demo_run_uses_bundled_tops_survey_and_pair(tmp_path, monkeypatch):
     monkeypatch.chdir(tmp_path)
-    assert main(["screen", "--no-sheet", "--throw-max", "80"]) == 0
+    assert main(["screen", "--no-sheet", "--throw-max", "80", "--realisations", "20"]) == 0
     out = tmp_path / "screening"
     settings = (out / "logprep-settings.toml").read_text()
     assert "tops.csv" in settings and "surveys" in settings
@@ -50,6 +50,9 @@ def test_demo_run_uses_bundled_tops_survey_and_pair(tmp_path, monkeypatch):
     assert pairs["status"].tolist() == ["ok"]
     assert (out / pairs["folder"].iloc[0] / "juxtapositions.csv").exists()
     assert not list(out.rglob("sheet.*"))  # --no-sheet covers the pair folders too
+    faults = pd.read_csv(out / "faults.csv")
+    assert set(faults["fault"]) == {"Harrowmere Fault", "Ostrel Fault"}
+    assert not (out / "faults").exists()  # and the fault pages
 
 
 def test_unreadable_auxiliary_unit_leaves_curve_out_not_the_well():

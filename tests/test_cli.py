@@ -38,7 +38,10 @@ def test_example_run_writes_contract(example_run, example_dir):
         assert (d / "sheet.png").read_bytes().startswith(b"\x89PNG")
         layers = pd.read_csv(d / "layers.csv")
         assert list(layers.columns[:5]) == ["top_m", "base_m", "thickness_m", "vsh", "lithology"]
-        assert set(layers["lithology"]) <= {"sand", "heterolith", "shale"}
+        from logprep.model import LAYER_CLASSES
+        assert set(layers["lithology"]) <= set(LAYER_CLASSES)
+        # a reservoir layer is a sand by default; no data never is
+        assert set(layers.loc[layers["reservoir"], "lithology"]) <= {"sand"}
         assert layers["vsh"].between(0, 1).all()
         np.testing.assert_allclose(layers["top_m"].iloc[1:], layers["base_m"].iloc[:-1], atol=1e-3)
         np.testing.assert_allclose(layers["thickness_m"], layers["base_m"] - layers["top_m"], atol=1e-3)
@@ -46,7 +49,12 @@ def test_example_run_writes_contract(example_run, example_dir):
         assert 800 < layers["base_m"].iloc[-1] - layers["top_m"].iloc[0] < 1300
         jux = pd.read_csv(d / "juxtapositions.csv")
         assert list(jux.columns[:8]) == WINDOW_COLUMNS
-        assert list(jux.columns[-4:]) == ["ssf_min", "ssf_max", "csp_min_m", "csp_max_m"]
+        from logprep.layers.footing import FOOTING_COLUMNS
+        assert list(jux.columns[-8:]) == FOOTING_COLUMNS
+        assert list(jux.columns[-12:-8]) == ["ssf_min", "ssf_max", "csp_min_m", "csp_max_m"]
+        assert set(jux["footing"]) <= {"sound", "partly filled", "flagged", "thin",
+                                       "partly filled; flagged", "partly filled; thin",
+                                       "flagged; thin", "partly filled; flagged; thin"}
         assert (jux["ssf_min"] <= jux["ssf_max"]).all() and (jux["csp_min_m"] >= 0).all()
         assert len(jux) > 0
         assert jux["sgr_min_pct"].between(0, 100).all() and jux["sgr_max_pct"].between(0, 100).all()
@@ -134,11 +142,15 @@ def test_console_script_version_and_default_run(tmp_path):
     cmd = [str(exe)] if exe.exists() else [sys.executable, "-m", "logprep.cli"]
     v = subprocess.run(cmd + ["--version"], capture_output=True, text=True)
     assert v.returncode == 0 and v.stdout.startswith("logprep ")
-    r = subprocess.run(cmd + ["screen", "--throw-max", "60"], cwd=tmp_path, capture_output=True,
-                       text=True, timeout=600)
+    r = subprocess.run(cmd + ["screen", "--throw-max", "60", "--realisations", "30"], cwd=tmp_path,
+                       capture_output=True, text=True, timeout=600)
     assert r.returncode == 0, r.stderr
     assert (tmp_path / "screening" / "summary.csv").exists()
     assert len(list((tmp_path / "screening").glob("*/sheet.pdf"))) >= 4
+    # the bundled faults file: a fault page per fault, and faults.csv
+    assert "screened 2 fault(s) in 30 realisations each: 2 ok" in r.stdout
+    pages = sorted(p.name for p in (tmp_path / "screening" / "faults").iterdir())
+    assert pages == ["Harrowmere_Fault.pdf", "Harrowmere_Fault.png", "Ostrel_Fault.pdf", "Ostrel_Fault.png"]
 
 
 def test_readme_test_command_is_what_ci_runs():

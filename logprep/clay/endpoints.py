@@ -129,6 +129,35 @@ def zone_bounds(depth_m, gr_api, zoning: str, tops: pd.DataFrame | None = None, 
     return bounds, source, names
 
 
+ONE_SIDED = ("recentre", "well")
+"""What a one-sided zone (too little clean-shale contrast) gets: ``recentre`` keeps the
+line on its own side and sets the other at the well's contrast from it; ``well`` takes the
+whole well's lines (a low-contrast zone is then read against the well, not re-centred on
+itself)."""
+
+
+def merge_short_zones(bounds, ok, min_samples: int) -> list[int]:
+    """Drop zone boundaries until every zone holds at least ``min_samples`` usable
+    samples (``ok``): the zone with the fewest is joined to its smaller neighbour, one at
+    a time.  A zone too short for a meaningful percentile pick is merged, not given
+    invented lines."""
+    ok = np.asarray(ok, dtype=bool)
+    b = sorted(int(x) for x in bounds)
+    while b:
+        edges = [0] + b + [ok.size]
+        counts = [int(ok[a:c].sum()) for a, c in zip(edges[:-1], edges[1:])]
+        k = int(np.argmin(counts))
+        if counts[k] >= min_samples:
+            break
+        if k == 0:
+            del b[0]
+        elif k == len(counts) - 1:
+            del b[-1]
+        else:  # join to the neighbour with fewer usable samples
+            del b[k - 1 if counts[k - 1] <= counts[k + 1] else k]
+    return b
+
+
 def pick_endpoints(
     depth_m,
     gr_api,
@@ -141,6 +170,8 @@ def pick_endpoints(
     min_samples: int = 30,
     source: str = "whole well",
     names=None,
+    one_sided: str = "recentre",
+    floor_percentile: float = 1.0,
 ) -> pd.DataFrame:
     """Clean and shale GR lines for each zone.
 
@@ -156,16 +187,23 @@ def pick_endpoints(
         Samples not to use in the picks (QC flags).
     min_contrast : float, default 0.7
         A zone whose shale-minus-clean contrast is below this fraction of the whole
-        well's is one-sided (nearly all shale or all sand): it keeps the line on its own
-        side (shale line for a zone shalier than the well's midline, clean line otherwise)
-        and sets the other at the whole-well contrast from it.
+        well's is one-sided (nearly all shale or all sand); see ``one_sided``.
     min_samples : int
-        Zones with fewer usable samples take the whole-well lines.
+        Zones with fewer usable samples are merged with a neighbour
+        (:func:`merge_short_zones`) before picking.
+    one_sided : str
+        One of :data:`ONE_SIDED`.
+    floor_percentile : float
+        The well's physical floor is this percentile of all its usable readings: no
+        zone's clean line goes below it, and none reaches the well's shale line (a
+        re-centred clean line of -5 API is no rock's reading).
 
     Returns
     -------
     DataFrame with columns :data:`PICK_COLUMNS` (``nd_shale_separation`` left NaN).
     """
+    if one_sided not in ONE_SIDED:
+        raise SettingsError(f"unknown one-sided rule {one_sided!r}; use one of {', '.join(ONE_SIDED)}")
     depth = np.asarray(depth_m, dtype=float)
     gr = np.asarray(gr_api, dtype=float)
     ok = np.isfinite(gr) if exclude is None else np.isfinite(gr) & ~np.asarray(exclude, bool)
@@ -180,28 +218,51 @@ def pick_endpoints(
         )
     span = s_all - c_all
     mid = 0.5 * (c_all + s_all)
-    starts = [0] + list(bounds)
-    stops = list(bounds) + [depth.size]
+    floor = min(float(np.percentile(gr[ok], floor_percentile)), c_all)
+    starts_all = [0] + list(bounds)
+    names_all = names or [f"zone {k + 1}" for k in range(len(starts_all))]
+    kept = merge_short_zones(bounds, ok, min_samples)
+    starts = [0] + kept
+    stops = kept + [depth.size]
     step = float(np.median(np.diff(depth))) if depth.size > 1 else 0.0
-    names = names or [f"zone {k + 1}" for k in range(len(starts))]
     rows = []
-    for k, (a, b) in enumerate(zip(starts, stops)):
+    for a, b in zip(starts, stops):
+        joined = [names_all[i] for i, st in enumerate(starts_all) if a <= st < b]
+        name = " + ".join(joined) if joined else names_all[0]
         use = ok[a:b]
         g = gr[a:b][use]
-        note = ""
+        note = "merged short zones" if len(joined) > 1 else ""
         if g.size < min_samples:
             c, s, note = c_all, s_all, "too few usable samples: whole-well lines"
         else:
             c, s = resolve_endpoint(clean, g), resolve_endpoint(shale, g)
             if s - c < min_contrast * span:
-                if np.median(g) >= mid:
+                shaly = np.median(g) >= mid
+                if one_sided == "well":
+                    c, s = c_all, s_all
+                    note = f"one-sided ({'shaly' if shaly else 'sandy'}) zone: whole-well lines"
+                elif shaly:
                     c, note = s - span, "one-sided (shaly) zone: clean line set from the well's contrast"
                 else:
                     s, note = c + span, "one-sided (sandy) zone: shale line set from the well's contrast"
-        rows.append((names[k], depth[a], depth[b - 1] + step, source, c, s, int(use.sum()),
+            if c < floor or c >= s_all:
+                c = min(max(c, floor), s_all - min_contrast * span)
+                s = max(s, c + min_contrast * span)
+                note = (note + "; " if note else "") + "clean line held within the well's floor and shale line"
+        rows.append((name, depth[a], depth[b - 1] + step, source, c, s, int(use.sum()),
                      int((~use & np.isfinite(gr[a:b])).sum() + (~np.isfinite(gr[a:b])).sum()),
                      np.nan, note))
     return pd.DataFrame(rows, columns=PICK_COLUMNS)
+
+
+def one_sided_note(picks: pd.DataFrame) -> str | None:
+    """A warning when most zones are one-sided (their lines are not their own picks)."""
+    n = len(picks)
+    k = int(picks["note"].str.contains("one-sided").sum())
+    if n > 1 and k > n / 2:
+        return (f"{k} of {n} GR zones are one-sided (too little clean-shale contrast for "
+                "their own lines); check the zoning or the tops")
+    return None
 
 
 def lines_per_sample(depth_m, picks: pd.DataFrame, column: str) -> np.ndarray:

@@ -28,6 +28,12 @@ QC_FLAGS: dict[str, tuple[int, str, str]] = {
     "gas_crossover": (128, "neutron-density crossover (gas)", "neutron-density Vsh set to 0, not negative"),
     "bad_density": (256, "density correction (DRHO) beyond its limit: poor pad contact",
                     "neutron-density not used (GR Vsh alone); GR picks unaffected"),
+    "bad_hole": (512, "hole enlarged beyond the bad-hole limit (caliper over bit size)",
+                 "unusable: a layer mostly of these is 'no data', never reservoir"),
+    "long_gap": (1024, "clay volume interpolated over a gap longer than the gap limit",
+                 "unusable: a layer mostly of these is 'no data', never reservoir"),
+    "top_hole": (2048, "top hole without usable density, neutron or sonic logs",
+                 "unusable: a layer mostly of these is 'no data', never reservoir"),
 }
 """QC flag name -> (bit in the exported QC curve, meaning, action)."""
 

@@ -5,7 +5,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from logprep.clay.endpoints import ZONINGS
+from logprep.clay.endpoints import ONE_SIDED, ZONINGS
 from logprep.clay.vshale import get_combination, get_transform, parse_endpoint
 from logprep.errors import SettingsError, require_finite_fields
 
@@ -39,6 +39,19 @@ class ClaySettings:
     drho_max_g_cm3 : float
         Density correction ``|DRHO|`` (g/cm3) above which the density reading is not
         trusted: neutron-density Vsh is not used there (GR alone).
+    one_sided : str
+        What a one-sided zone's lines are, one of :data:`logprep.clay.endpoints.ONE_SIDED`.
+    rock_classes : bool
+        Recognise limestone/chalk, dolomite, coal, anhydrite and halite from the density,
+        neutron and PEF logs (:mod:`logprep.clay.lithology`).
+    bad_hole_in : float
+        Caliper over bit size (inches) beyond which the hole is too enlarged to read the
+        rock: such samples are unusable (a bit size is inferred when the well has none).
+    gap_limit_m : float
+        Vsh interpolated over a gap longer than this (m) is unusable.
+    top_hole_run_m : float
+        The top hole ends where density, neutron or sonic are first measured for this
+        many metres; the gamma ray above is unusable (wells with a GR only are exempt).
     """
 
     transform: str = "linear"
@@ -51,6 +64,11 @@ class ClaySettings:
     vsh_combine: str = "mean"
     washout_in: float = 1.5
     drho_max_g_cm3: float = 0.10
+    one_sided: str = "recentre"
+    rock_classes: bool = True
+    bad_hole_in: float = 4.0
+    gap_limit_m: float = 5.0
+    top_hole_run_m: float = 30.0
 
     def __post_init__(self) -> None:
         require_finite_fields(self)
@@ -68,5 +86,14 @@ class ClaySettings:
             raise SettingsError(f"--washout must be > 0 in (got {self.washout_in:g})")
         if not self.drho_max_g_cm3 > 0:
             raise SettingsError(f"--drho-max must be > 0 g/cm3 (got {self.drho_max_g_cm3:g})")
+        if self.one_sided not in ONE_SIDED:
+            raise SettingsError(f"unknown one-sided rule {self.one_sided!r}; choose one of "
+                                f"{', '.join(ONE_SIDED)}")
+        if not self.bad_hole_in > 0:
+            raise SettingsError(f"--bad-hole must be > 0 in (got {self.bad_hole_in:g})")
+        if not self.gap_limit_m >= 0:
+            raise SettingsError(f"--gap-limit must be >= 0 m (got {self.gap_limit_m:g})")
+        if not self.top_hole_run_m > 0:
+            raise SettingsError(f"--top-hole-run must be > 0 m (got {self.top_hole_run_m:g})")
         object.__setattr__(self, "gr_clean", parse_endpoint(self.gr_clean))
         object.__setattr__(self, "gr_shale", parse_endpoint(self.gr_shale))

@@ -9,8 +9,14 @@ from dataclasses import dataclass
 import numpy as np
 import pandas as pd
 
-from logprep.clay.endpoints import lines_per_sample, nd_shale_separation, pick_endpoints, zone_bounds
-from logprep.clay.qc import ND_ONLY, REPLACED, QcSettings, any_flag, density_correction_flags, gr_flags, inches
+from logprep.clay.endpoints import (
+    lines_per_sample, nd_shale_separation, one_sided_note, pick_endpoints, zone_bounds,
+)
+from logprep.clay.holecheck import inferred_bit_size_in, unusable_flags
+from logprep.clay.lithology import classify_rock, missing_curve_notes
+from logprep.clay.qc import (
+    ND_ONLY, REPLACED, QcSettings, any_flag, density_correction_flags, gr_flags, inches, washout_flags,
+)
 from logprep.clay.settings import ClaySettings
 from logprep.clay.vshale import (
     density_correction_g_cm3, density_g_cm3, density_porosity, gamma_ray_index, gas_crossover,
@@ -37,6 +43,8 @@ class ClayVolume:
     gr_clean_api: float
     gr_shale_api: float
     notes: tuple[str, ...]
+    rock: np.ndarray | None = None
+    unusable: dict | None = None
 
 
 def _curve_in(well: WellLog, kind: str, sl: slice, convert, notes: list[str]):
@@ -82,7 +90,7 @@ def clay_volume(well: WellLog, settings: ClaySettings = ClaySettings(),
     try:
         picks = pick_endpoints(depth, gr, bounds, clean=settings.gr_clean, shale=settings.gr_shale,
                                exclude=exclude, min_contrast=settings.min_contrast,
-                               source=source, names=names)
+                               source=source, names=names, one_sided=settings.one_sided)
         whole = pick_endpoints(depth, gr, [], clean=settings.gr_clean, shale=settings.gr_shale,
                                exclude=exclude)
     except SettingsError as exc:
@@ -113,9 +121,54 @@ def clay_volume(well: WellLog, settings: ClaySettings = ClaySettings(),
         if not usable.any():
             notes.append("neutron-density: no usable shale point; GR Vsh alone")
     vsh = get_combination(settings.vsh_combine)(vsh_gr, vsh_nd)
+    note = one_sided_note(picks)
+    if note:
+        notes.append(note)
+    rock, unusable = rock_and_unusable(well, sl, settings, depth=depth, vsh=vsh, flags=flags,
+                                       igr=gamma_ray_index(gr, clean_line, shale_line),
+                                       curves=dict(rhob=rhob, nphi=nphi, cali=cali, bs=bs),
+                                       notes=notes)
     return ClayVolume(
         depth_m=depth, gr_api=gr_read, vsh_gr=vsh_gr, vsh_nd=vsh_nd, vsh=vsh, qc_flags=flags,
         picks=picks, gr_clean_line=clean_line, gr_shale_line=shale_line,
         gr_clean_api=float(whole["gr_clean_api"].iloc[0]),
         gr_shale_api=float(whole["gr_shale_api"].iloc[0]), notes=tuple(notes),
+        rock=rock, unusable=unusable,
     )
+
+
+def rock_and_unusable(well: WellLog, sl: slice, settings: ClaySettings, *, depth, vsh, flags,
+                      igr, curves: dict, notes: list[str]):
+    """Rock class per sample (:func:`logprep.clay.lithology.classify_rock`) and the
+    unusable-sample masks (:func:`logprep.clay.holecheck.unusable_flags`); the
+    ``bad_hole``, ``long_gap`` and ``top_hole`` masks are also added to ``flags`` (they are
+    QC findings of ``qc.csv``), and a note per missing curve goes to ``notes``."""
+    rhob, nphi, cali, bs = curves["rhob"], curves["nphi"], curves["cali"], curves["bs"]
+    pef = _curve_in(well, "pef", sl, lambda v, _u: np.asarray(v, dtype=float), notes)
+    dt = _curve_in(well, "dt", sl, lambda v, _u: np.asarray(v, dtype=float), notes)
+    enlarged = flags["washout"]
+    if cali is not None and bs is None:  # no bit size: judge the washout on the inferred one
+        enlarged = enlarged | washout_flags(cali, inferred_bit_size_in(depth, cali), settings.washout_in)
+    if settings.rock_classes and ((rhob is not None and nphi is not None) or pef is not None):
+        rock = classify_rock(rhob_g_cm3=rhob, nphi_v_v=nphi, pef_b_e=pef, igr=igr,
+                             washout=enlarged)
+    else:
+        rock = np.full(depth.size, "", dtype=object)
+    if settings.rock_classes:
+        notes.extend(missing_curve_notes(rhob=rhob is not None, nphi=nphi is not None,
+                                         pef=pef is not None, cali=cali is not None,
+                                         bs=bs is not None))
+    qc_failed = any_flag(flags, list(REPLACED) + ["missing", "null_gap"])
+    unusable = unusable_flags(depth, filled=~np.isfinite(vsh), qc_failed=qc_failed, cali_in=cali,
+                              bs_in=bs, aux_curves=[rhob, nphi, dt],
+                              bad_hole_in=settings.bad_hole_in, gap_limit_m=settings.gap_limit_m,
+                              top_hole_run_m=settings.top_hole_run_m)
+    for k in ("bad_hole", "long_gap", "top_hole"):
+        flags[k] = unusable[k]
+    for k, what in (("top_hole", "top hole without usable logs"),
+                    ("bad_hole", "badly enlarged hole"), ("long_gap", "long filled gaps")):
+        if unusable[k].any():
+            step = float(np.median(np.diff(depth))) if depth.size > 1 else 0.0
+            notes.append(f"{what}: {unusable[k].sum() * step:.0f} m unusable "
+                         "(layers mostly of it are 'no data')")
+    return rock, unusable

@@ -220,10 +220,12 @@ def sand_windows(layers: Layers, throw_max_m: float, lithology: str = "sand",
     """
     if throw_max_m <= 0:
         raise ValueError("throw_max_m must be positive")
-    if reservoir is None:
-        idx = np.array([i for i, lith in enumerate(layers.lithology) if lith == lithology], dtype=int)
-    else:
+    # reservoir layers (default: the sand layers); another name asks for that class alone
+    if reservoir is not None:
         idx = np.flatnonzero(np.asarray(reservoir, bool)).astype(int)
+    else:
+        idx = (np.flatnonzero(layers.reservoir).astype(int) if lithology == "sand"
+               else np.array([i for i, lith in enumerate(layers.lithology) if lith == lithology], dtype=int))
     bounds, clay = cumulative_clay(layers)
     # only hanging-wall beds that can touch within the throw cap: top below the footwall
     # bed's base, base within ``throw_max_m`` above its top (the layers are in depth

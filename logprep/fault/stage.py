@@ -29,7 +29,7 @@ def fault_stage(well: WellLog, layers: Layers, depth_m, vsh, field: FieldSetting
     Vsh.  CSP is along the fault (:func:`~logprep.fault.geometry.csp_factor`)."""
     clay = clay_layers(layers, field.clay_conversion, field.shale_clay_fraction)
     vcl = clay_curve(np.asarray(vsh, float), field.clay_conversion, field.shale_clay_fraction)
-    reservoir = reservoir_mask(layers, field.heterolith_reservoir_ntg)
+    reservoir = np.asarray(layers.reservoir, bool) | reservoir_mask(layers, field.heterolith_reservoir_ntg)
     windows = sand_windows(clay, field.throw_max_m, reservoir=reservoir)
     grid = sgr_field(clay, depth_m, vcl, throw_max_m=field.throw_max_m,
                      throw_step_m=field.field_throw_step_m, depth_step_m=field.field_depth_step_m,

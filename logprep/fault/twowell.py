@@ -162,8 +162,9 @@ def two_well_windows(fw: Layers, hw: Layers, shift_m: float, throw_max_m: float,
     Hanging-wall depths are the hanging-wall well's own depths; ``throw_*`` are marker
     offsets.  Columns :data:`PAIR_WINDOW_COLUMNS`.
     """
-    fsand = [int(i) for i in np.flatnonzero(reservoir_mask(fw, heterolith_ntg))]
-    hsand = [int(i) for i in np.flatnonzero(reservoir_mask(hw, heterolith_ntg))]
+    # reservoir layers (default: sand), with heteroliths above a net-to-gross when asked
+    fsand = [int(i) for i in np.flatnonzero(fw.reservoir | reservoir_mask(fw, heterolith_ntg))]
+    hsand = [int(i) for i in np.flatnonzero(hw.reservoir | reservoir_mask(hw, heterolith_ntg))]
     fb = np.concatenate(([fw.top_m[0]], fw.base_m))
     hb = np.concatenate(([hw.top_m[0]], hw.base_m))
     rows = []

@@ -36,6 +36,8 @@ CURVE_ALIASES: dict[str, list[str]] = {
     "cali": ["CALI", "CAL", "CALX", "CALS", "HCAL", "C1", "CALY", "CALIPER"],
     "bs": ["BS", "BIT", "BITSIZE", "BIT_SIZE"],
     "drho": ["DRHO", "DCOR", "ZCOR", "HDRA", "DRH"],
+    "pef": ["PEF", "PEFZ", "PE", "PEF8", "PDPE", "PEFL"],
+    "dt": ["DTC", "DT", "DTCO", "AC", "DT4P", "DTP"],
 }
 """Mnemonics by curve kind (gamma ray, neutron porosity, bulk density, caliper, bit size,
 density correction), in order of preference; first match wins.  Add a kind or a mnemonic
@@ -43,7 +45,8 @@ here."""
 
 _KIND_NAMES = {"gr": "gamma-ray", "nphi": "neutron-porosity", "rhob": "bulk-density",
                "cali": "caliper", "bs": "bit-size",
-               "drho": "density-correction"}
+               "drho": "density-correction", "pef": "photoelectric-factor",
+               "dt": "compressional-sonic"}
 
 DEPTH_UNITS_M: dict[str, float] = {
     "M": 1.0, "METER": 1.0, "METERS": 1.0, "METRE": 1.0, "METRES": 1.0,

@@ -195,8 +195,15 @@ def _merge_thin(top, base, extras, sand_cutoff, shale_cutoff, min_bed_m):
     version = [0] * n
     live = [n]
 
+    check_cutoffs(sand_cutoff, shale_cutoff)
+
     def cls(i):
-        return int(classify_vsh(clay[i] / (base[i] - top[i]), sand_cutoff, shale_cutoff))
+        # classify_vsh on one value, in plain floats (the same comparisons; called per merge)
+        t = base[i] - top[i]
+        if not t > 0:
+            return int(classify_vsh(clay[i] / t, sand_cutoff, shale_cutoff))
+        v = clay[i] / t
+        return 0 if v <= sand_cutoff else 2 if v >= shale_cutoff else 1
 
     heap = [(base[i] - top[i], top[i], i, 0) for i in range(n) if base[i] - top[i] < min_bed_m]
     heapq.heapify(heap)

@@ -14,8 +14,9 @@ from matplotlib.collections import PolyCollection
 from logprep import __version__
 from logprep.fault.sgr import contact_polygon
 from logprep.report.caution import CAUTION
+from logprep.report.rockdraw import ROCK_COLOURS
 
-LITHOLOGY_COLOURS = {"sand": "#F0E442", "heterolith": "#E69F00", "shale": "#8C8C8C"}
+LITHOLOGY_COLOURS = {"sand": "#F0E442", "heterolith": "#E69F00", "shale": "#8C8C8C", **ROCK_COLOURS}
 SGR_CONTOURS_PCT = (10, 20, 30, 40, 60)
 PAGE_SIZE_IN = (16.5, 11.7)  # A3 landscape
 ROWS_PAGE1 = 22

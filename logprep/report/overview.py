@@ -115,7 +115,8 @@ def _fill_from_folder(row: OverviewRow, out: Path) -> None:
     layers = _read_csv(folder / "layers.csv")
     if layers is not None and "lithology" in layers:
         row.layers = len(layers)
-        row.sands = int((layers["lithology"] == "sand").sum())
+        row.sands = (int(layers["reservoir"].astype(str).str.lower().eq("true").sum())
+                     if "reservoir" in layers else int((layers["lithology"] == "sand").sum()))
     windows = _read_csv(folder / "juxtapositions.csv")
     if windows is not None:
         if "self_juxtaposed" in windows:

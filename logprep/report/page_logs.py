@@ -11,6 +11,7 @@ from matplotlib.ticker import MaxNLocator
 
 from logprep.report.labels import formation_labels
 from logprep.report.layout import robust_upper
+from logprep.report.rockdraw import ROCK_COLOURS, hatch_no_data_field, hatch_no_data_layers, rock_legend_handles
 from logprep.report.draw import (
     INK, LITHOLOGY_COLOURS, NO_DATA, PAGE_SIZE_IN, QC_COLOURS, ROWS_PAGE1, WINDOW_INK, draw_field,
     draw_footer, draw_sgr_colourbar, draw_window_table, riskiest_windows, window_rows,
@@ -89,6 +90,7 @@ def draw_layer_track(ax, result) -> None:
     L = result.layers
     for top, base, lith in zip(L.top_m, L.base_m, L.lithology):
         ax.axhspan(top, base, color=LITHOLOGY_COLOURS[lith], lw=0)
+    hatch_no_data_layers(ax, L)
     if result.qc_flags:
         bad = np.zeros(result.depth_m.size, dtype=bool)
         for mask in result.qc_flags.values():
@@ -114,6 +116,7 @@ def draw_triangle(ax, result, labelled=()) -> None:
     s = result.settings
     im = draw_field(ax, result.grid, threshold_pct=s.capacity.sgr_threshold_pct, throw_max_m=s.field.throw_max_m,
                     windows=result.windows, labelled=labelled)
+    hatch_no_data_field(ax, result.grid, result.layers)
     draw_sgr_colourbar(ax, im)
     ax.set_xlabel("Throw (m); normal fault, hanging wall down")
     ax.text(0.0, 1.012, f"Triangle diagram: SGR from {result.grid.source},\nsand-sand windows outlined",
@@ -136,11 +139,12 @@ def draw_legend(ax, result) -> None:
         Patch(facecolor=NO_DATA, edgecolor="#666666", label="slipped interval leaves the log"),
     ]
     handles += [Patch(facecolor=c, edgecolor="#666666", label=f"layer: {n}")
-                for n, c in LITHOLOGY_COLOURS.items()]
+                for n, c in LITHOLOGY_COLOURS.items() if n not in ROCK_COLOURS]
+    handles += rock_legend_handles(result.layers)
     ax.legend(handles=handles, loc="upper left", ncol=2, fontsize=8, frameon=False,
               title="Triangle diagram and layers", title_fontsize=9)
     L = result.layers
-    sand = np.array(L.lithology) == "sand"
+    sand = np.asarray(L.reservoir, dtype=bool)  # reservoir layers (default: sand)
     cross = result.windows[~result.windows["self_juxtaposed"]]
     low = cross[cross["sgr_min_pct"] < result.settings.capacity.sgr_threshold_pct]
     lines = [

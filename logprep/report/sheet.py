@@ -14,12 +14,13 @@ from collections.abc import Callable
 from matplotlib.figure import Figure
 
 from logprep.report.page_capacity import seal_capacity_page
+from logprep.report.page_fault import fault_pages
 from logprep.report.page_logs import log_page
 from logprep.report.page_smear import smear_page
 from logprep.report.page_tables import window_table_pages
 
 PAGES: list[Callable[[object], list[Figure]]] = [log_page, seal_capacity_page, smear_page,
-                                                 window_table_pages]
+                                                 fault_pages, window_table_pages]
 """Functions ``result -> list of Figures``, in page order."""
 
 

@@ -117,7 +117,7 @@ def png_bytes(figure, dpi: int = 110) -> bytes:
 _UNSAFE = re.compile(r"[^A-Za-z0-9._-]+")
 
 RESERVED_NAMES = ("summary.csv", "pairs_summary.csv", "logprep-settings.toml", "overview.html",
-                  "overview.pdf")
+                  "overview.pdf", "faults.csv", "faults")
 """Files a run writes at the top of its output folder: no well folder may take their name."""
 
 

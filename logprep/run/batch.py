@@ -49,19 +49,23 @@ class BatchReport:
 
 
 def screen_one(path: Path, folder: str, out_dir: Path, settings: ScreenSettings, tops=None,
-               sheets: bool = True) -> dict:
+               sheets: bool = True, faults=None, spreads=None) -> dict:
     """Screen one file and write its folder; return its ``summary.csv`` row.
 
     A :class:`LogprepError` becomes a row with ``status`` ``error`` and a one-line
     message naming the file; nothing is written for that file.  ``sheets=False`` writes
-    the tables only.  Top-level so that worker processes can run it.
+    the tables only.  ``faults`` (fault results by footwall well, see
+    :func:`logprep.run.faults.with_fault_work`) adds their pages to the sheet; ``spreads``
+    appends the uncertainty columns to ``juxtapositions.csv``.  Top-level so that worker
+    processes can run it.
     """
+    from logprep.run.faults import with_fault_work
     from logprep.report.sheet import build_sheet  # drawing is imported only when needed
 
     row = {"well": folder, "source": str(path), "status": "ok", "message": "",
            "layers": "", "sand_sand_windows": "", "min_window_sgr_pct": "", "folder": ""}
     try:
-        result = screen_file(path, settings, tops=tops)
+        result = with_fault_work(screen_file(path, settings, tops=tops), faults, spreads)
         files_out = render_well(result, build_sheet if sheets else None)
         write_well(files_out, Path(out_dir) / folder)
     except LogprepError as exc:
@@ -87,6 +91,8 @@ def screen_paths(
     progress: Callable[[Iterable], Iterable] | None = None,
     jobs: int = 1,
     sheets: bool = True,
+    faults=None,
+    spreads=None,
 ) -> BatchReport:
     """Screen every LAS file under ``paths`` and write results below ``out_dir``.
 
@@ -98,7 +104,9 @@ def screen_paths(
     A :class:`LogprepError` for one file is recorded (and passed to ``on_error``) and the
     batch goes on; any other exception is a bug and propagates.  ``jobs`` > 1 screens wells
     in that many worker processes (results are the same as with one); ``sheets=False``
-    skips the PDF/PNG sheets (tables and fields only) for fast large batches.
+    skips the PDF/PNG sheets (tables and fields only) for fast large batches.  ``faults``
+    and ``spreads`` as for :func:`screen_one` (the spreads are also written to the settings
+    file's ``[uncertainty]`` table).
     """
     out = Path(out_dir)
     files = find_las_files(paths)
@@ -111,7 +119,7 @@ def screen_paths(
     tops = read_tops(settings.input.tops_file) if settings.input.tops_file else None
     if settings.input.survey_dir:
         check_survey_dir(settings.input.survey_dir)
-    write_settings(out / SETTINGS_FILE_NAME, settings)
+    write_settings(out / SETTINGS_FILE_NAME, settings, uncertainty=spreads)
     taken: set[str] = set()
     folders = [folder_name(f, taken) for f in files]
     rows: list[dict | None] = [None] * len(files)
@@ -127,12 +135,12 @@ def screen_paths(
     if jobs == 1 or len(files) == 1:
         iterator = progress(range(len(files))) if progress else range(len(files))
         for i in iterator:
-            record(i, screen_one(files[i], folders[i], out, settings, tops, sheets))
+            record(i, screen_one(files[i], folders[i], out, settings, tops, sheets, faults, spreads))
     else:
         from concurrent.futures import ProcessPoolExecutor, as_completed
 
         with ProcessPoolExecutor(max_workers=min(jobs, len(files))) as pool:
-            futures = {pool.submit(screen_one, f, name, out, settings, tops, sheets): i
+            futures = {pool.submit(screen_one, f, name, out, settings, tops, sheets, faults, spreads): i
                        for i, (f, name) in enumerate(zip(files, folders))}
             done = as_completed(futures)
             for fut in (progress(done) if progress else done):

@@ -110,6 +110,8 @@ def parse_settings_dict(data: dict, source: str = "settings") -> tuple[dict, dic
     types_ = _settings_types()
     settings, tune = {}, {}
     for key, value in _flatten_groups(data, source):
+        if key == "uncertainty" and isinstance(value, dict):
+            continue  # the Monte Carlo spreads: read by read_uncertainty
         if key == "tune" and isinstance(value, dict):
             for k, v in value.items():
                 if k not in TUNE_KEYS:
@@ -152,9 +154,37 @@ def read_config(path: str | Path) -> tuple[dict, dict]:
     return settings, tune
 
 
-def settings_toml(settings, tune: dict | None = None) -> str:
-    """The TOML text of ``settings`` (a :class:`ScreenSettings`) and optional tune ranges;
-    :func:`read_config` of it gives the same settings back."""
+def read_uncertainty(path: str | Path | None):
+    """The Monte Carlo spreads (:class:`~logprep.fault.uncertainty.Spreads`) of a settings
+    file's ``[uncertainty]`` table; the defaults without a file or a table."""
+    from logprep.fault.uncertainty import Spreads, spreads_from_dict
+
+    if path is None:
+        return Spreads()
+    path = Path(path)
+    try:
+        data = tomllib.loads(path.read_text(encoding="utf-8"))
+    except (OSError, UnicodeDecodeError, tomllib.TOMLDecodeError) as exc:
+        raise ConfigError(f"{path}: cannot read the settings file ({exc})") from None
+    table = data.get("uncertainty", {})
+    if not isinstance(table, dict):
+        raise ConfigError(f"{path}: uncertainty must be a table ([uncertainty])")
+    return spreads_from_dict(table, str(path))
+
+
+def uncertainty_table(spreads) -> dict:
+    """The ``[uncertainty]`` table of :func:`settings_toml` for a Spreads."""
+    from dataclasses import asdict
+
+    table = asdict(spreads)
+    table["transform_weights"] = {k: w for k, w in spreads.transform_weights}
+    return table
+
+
+def settings_toml(settings, tune: dict | None = None, uncertainty=None) -> str:
+    """The TOML text of ``settings`` (a :class:`ScreenSettings`), optional tune ranges and
+    Monte Carlo spreads; :func:`read_config` and :func:`read_uncertainty` of it give the
+    same back."""
     body = {}
     for group, values in settings.to_dict().items():
         table = {}
@@ -167,14 +197,16 @@ def settings_toml(settings, tune: dict | None = None) -> str:
         body[group] = table
     if tune:
         body["tune"] = {k: list(v) if isinstance(v, tuple) else v for k, v in tune.items()}
+    if uncertainty is not None:
+        body["uncertainty"] = uncertainty_table(uncertainty)
     head = ("# logprep settings: every value used by the run, so it can be repeated with\n"
             "#   logprep screen --config THIS_FILE ...\n"
             "# Settings left out were not set (None).\n")
     return head + tomli_w.dumps(body)
 
 
-def write_settings(path: str | Path, settings, tune: dict | None = None) -> Path:
+def write_settings(path: str | Path, settings, tune: dict | None = None, uncertainty=None) -> Path:
     """Write :func:`settings_toml` to ``path`` atomically; returns the path."""
     path = Path(path)
-    write_bytes_atomic(path, settings_toml(settings, tune).encode("utf-8"))
+    write_bytes_atomic(path, settings_toml(settings, tune, uncertainty).encode("utf-8"))
     return path

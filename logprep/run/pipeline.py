@@ -18,17 +18,19 @@ import numpy as np
 import pandas as pd
 
 from logprep.clay.endpoints import PICK_COLUMNS
+from logprep.clay.qc import ND_ONLY, any_flag
 from logprep.clay.stage import clay_volume
 from logprep.fault.sgr import SgrField
 from logprep.fault.stage import fault_stage
 from logprep.io.las import read_well
 from logprep.io.survey import deviated_well
 from logprep.io.tops import TOPS_COLUMNS, well_tops
-from logprep.layers.blocking import block_with_boundaries, fill_gaps
+from logprep.layers.footing import window_footing
+from logprep.layers.stage import Column, blocked_column
 from logprep.model import Layers, WellLog
 from logprep.run.settings import ScreenSettings
 
-__all__ = ["ScreenSettings", "WellScreening", "screen_file", "screen_well"]
+__all__ = ["ScreenSettings", "WellScreening", "screen_column", "screen_file", "screen_well"]
 
 
 @dataclass(frozen=True)
@@ -66,6 +68,9 @@ class WellScreening:
     gr_shale_line: np.ndarray | None = None
     grid: SgrField | None = None
     depth_reference: str = "as logged"
+    rock: np.ndarray | None = None
+    unusable: dict | None = None
+    faults: tuple = ()
     survey: tuple | None = None
 
     @property
@@ -87,34 +92,54 @@ def screen_well(
     ``tops`` is a tops table for any number of wells (see :mod:`logprep.io.tops`); when it
     is None and ``settings.input.tops_file`` is set, that file is read.
     """
-    inp, lay, fld = settings.input, settings.layers, settings.field
-    picks = well_tops(well, inp.tops_file, tops)
-    well, picks, depth_ref, survey_note, survey = deviated_well(well, inp.survey_dir, picks, with_survey=True)
-    cv = clay_volume(well, settings.clay, picks)
-    depth = cv.depth_m
-    notes = list(cv.notes) + ([survey_note] if survey_note else [])
-    vsh, filled = fill_gaps(depth, cv.vsh, extend_ends=True)
-    if filled.any():
-        notes.append(
-            f"{int(filled.sum())} GR samples missing or replaced after QC; Vsh interpolated there"
-        )
-    forced = picks["top_m"].to_numpy(float) if lay.honour_tops else ()
-    if lay.honour_tops and len(picks) == 0:
-        notes.append("no formation tops for this well; layers not tied to tops")
-    layers = block_with_boundaries(
-        lay.blocking, depth, vsh, forced, filled=filled, **lay.blocking_kwargs()
-    )
+    fld, inp = settings.field, settings.input
+    well, picks, depth_ref, cv, col, notes, survey = _column_stages(well, settings, tops)
+    depth, vsh, filled, layers = cv.depth_m, col.vsh, col.filled, col.layers
     windows, sgr, fault_notes = fault_stage(well, layers, depth, vsh, fld, settings.capacity,
                                             settings.fault_rock, inp.bed_dip_deg)
     notes.extend(fault_notes)
+    windows = windows.join(window_footing(windows, layers.filled_fraction, layers.flagged_fraction,
+                                          layers.thickness_m, thin_m=settings.layers.thin_bed_m))
     return WellScreening(
         well=well, settings=settings, depth_m=depth, gr_api=cv.gr_api, vsh=vsh, filled=filled,
         gr_clean_api=cv.gr_clean_api, gr_shale_api=cv.gr_shale_api, layers=layers,
         windows=windows, tops=picks, notes=tuple(notes), vsh_gr=cv.vsh_gr, vsh_nd=cv.vsh_nd,
         qc_flags=cv.qc_flags, picks=cv.picks, gr_clean_line=cv.gr_clean_line,
         gr_shale_line=cv.gr_shale_line, grid=sgr,
-        depth_reference=depth_ref, survey=survey,
+        depth_reference=depth_ref, rock=cv.rock, unusable=cv.unusable, survey=survey,
     )
+
+
+def _column_stages(well: WellLog, settings: ScreenSettings, tops):
+    """Tops and TVD, clay volume and the blocked column: every stage up to ``layers.csv``."""
+    inp, lay = settings.input, settings.layers
+    picks = well_tops(well, inp.tops_file, tops)
+    well, picks, depth_ref, survey_note, survey = deviated_well(well, inp.survey_dir, picks, with_survey=True)
+    cv = clay_volume(well, settings.clay, picks)
+    notes = list(cv.notes) + ([survey_note] if survey_note else [])
+    if (~np.isfinite(cv.vsh)).any():
+        notes.append(f"{int((~np.isfinite(cv.vsh)).sum())} GR samples missing or replaced after "
+                     "QC; Vsh interpolated there")
+    forced = picks["top_m"].to_numpy(float) if lay.honour_tops else ()
+    if lay.honour_tops and len(picks) == 0:
+        notes.append("no formation tops for this well; layers not tied to tops")
+    col = blocked_column(cv.depth_m, cv.vsh, lay, forced_m=forced, rock=cv.rock,
+                         unusable=cv.unusable, flagged=qc_flagged(cv.qc_flags))
+    return well, picks, depth_ref, cv, col, notes + list(col.notes), survey
+
+
+def qc_flagged(flags: dict) -> np.ndarray | None:
+    """Samples with any GR-side QC flag (the neutron-density-only flags aside)."""
+    if not flags:
+        return None
+    return any_flag(flags, [k for k in flags if k not in ND_ONLY])
+
+
+def screen_column(well: WellLog, settings: ScreenSettings = ScreenSettings(), *,
+                  tops: pd.DataFrame | None = None) -> Column:
+    """The blocked column of a well exactly as :func:`screen_well` writes it to
+    ``layers.csv``, without the fault stages (for validation and tuning)."""
+    return _column_stages(well, settings, tops)[4]
 
 
 def screen_file(

@@ -21,21 +21,27 @@ overlap are exact, as in :func:`logprep.fault.juxtaposition.sand_windows`.
 from __future__ import annotations
 
 import itertools
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from pathlib import Path
 
 import numpy as np
 import pandas as pd
 
-from logprep.layers.blocking import block_with_boundaries, net_to_gross
-from logprep.fault.capacity import verdict
 from logprep.errors import SettingsError
+from logprep.fault.capacity import verdict
 from logprep.fault.juxtaposition import _sgr_extremes, cumulative_clay, sand_windows
+from logprep.io.descriptions import (
+    descriptions_for_well, labels_at, labels_from_codes, read_descriptions,
+)
+from logprep.io.las import read_well
+from logprep.layers.blocking import net_to_gross
+from logprep.layers.rockscore import called_reservoir, rock_scores
+from logprep.layers.stage import blocked_column
 from logprep.model import Layers
-from logprep.run.pipeline import WellScreening, screen_file, screen_well
 from logprep.report.tune_figure import sweep_figure
 from logprep.report.writers import csv_bytes, pdf_bytes, png_bytes, write_bytes_atomic
 from logprep.run.config import SETTINGS_FILE_NAME, settings_toml
+from logprep.run.pipeline import WellScreening, qc_flagged, screen_well
 from logprep.run.settings import ScreenSettings
 
 DEFAULT_SAND_CUTOFFS = (0.20, 0.25, 0.30, 0.35, 0.40, 0.45, 0.50)
@@ -51,8 +57,38 @@ SWEEP_COLUMNS = [
     "net_to_gross", "sand_sand_windows", "min_window_sgr_pct", "leak_windows",
     "verdicts_flipped", "new_leak_windows", "windows_changed",
 ]
-"""Leading columns of the sweep table; one ``w<k>`` verdict column per reference window
-follows."""
+"""Leading columns of the sweep table; with a rock reference :data:`ROCK_COLUMNS` follow,
+then one ``w<k>`` verdict column per reference window."""
+
+ROCK_COLUMNS = ["rock_precision", "rock_recall", "rock_balanced_accuracy", "best_rock_match"]
+"""Scores of each setting's reservoir layers against described rock
+(:mod:`logprep.layers.rockscore`); ``best_rock_match`` marks the settings with the highest
+balanced accuracy."""
+
+LABEL_CURVES = ("FORCE_2020_LITHOFACIES_LITHOLOGY",)
+"""Lithology label curves used as the rock reference when a well carries one."""
+
+
+def rock_reference(result: WellScreening, descriptions: str | Path | pd.DataFrame | None = None,
+                   label_curve: str | None = None) -> np.ndarray | None:
+    """Rock group per sample of ``result.depth_m`` from a core or cuttings description file
+    (:func:`logprep.io.descriptions.read_descriptions`), else from a lithology label curve
+    of the well (``label_curve`` or one of :data:`LABEL_CURVES`); None when neither exists."""
+    well = result.well
+    if descriptions is not None:
+        desc = descriptions if isinstance(descriptions, pd.DataFrame) else read_descriptions(descriptions)
+        mine = descriptions_for_well(desc, well.name, Path(well.source).stem)
+        if len(mine) == 0:
+            raise SettingsError(f"{descriptions}: no described interval for well {well.name}")
+        return labels_at(result.depth_m, mine)
+    names = [label_curve] if label_curve else [c for c in LABEL_CURVES if c in well.curves]
+    for name in names:
+        if name not in well.curves:
+            raise SettingsError(f"{well.source}: no label curve {name!r}; found "
+                                f"{', '.join(well.curves)}")
+        i0 = int(np.searchsorted(well.depth_m, result.depth_m[0]))
+        return labels_from_codes(well.curves[name][i0:i0 + result.depth_m.size])
+    return None
 
 
 MAX_SWEEP_VALUES = 200
@@ -196,6 +232,7 @@ def sweep_screening(
     sand_cutoffs=DEFAULT_SAND_CUTOFFS,
     shale_cutoffs=DEFAULT_SHALE_CUTOFFS,
     min_beds_m=DEFAULT_MIN_BEDS_M,
+    reference_labels=None,
 ) -> Sweep:
     """Re-block the clay volume of ``result`` at every combination of cut-offs and minimum
     bed thickness (combinations with sand >= shale cut-off are skipped) and record, per
@@ -204,7 +241,10 @@ def sweep_screening(
     window (``result``'s own windows; see the module notes).
 
     Every other setting (method, penalty, tops, throws, threshold) stays as in
-    ``result.settings``, which is also the reference row.
+    ``result.settings``, which is also the reference row.  With ``reference_labels`` (a
+    rock group per sample of ``result.depth_m``, see :func:`rock_reference`) each row is
+    also scored against the rock (:data:`ROCK_COLUMNS`): which settings agree with the
+    described rock, beside how many verdicts flip.
     """
     s = result.settings
     sands, shales, beds = (parse_values(v, n) for v, n in (
@@ -232,9 +272,11 @@ def sweep_screening(
         if k == 0:
             layers, windows = result.layers, result.windows
         else:
-            kw = s.layers.blocking_kwargs() | dict(sand_cutoff=sand, shale_cutoff=shale, min_bed_m=bed)
-            layers = block_with_boundaries(s.layers.blocking, result.depth_m, result.vsh, forced,
-                                           filled=result.filled, **kw)
+            lay = replace(s.layers, sand_cutoff=sand, shale_cutoff=shale, min_bed_m=bed)
+            raw = np.where(result.filled, np.nan, result.vsh)
+            layers = blocked_column(result.depth_m, raw, lay, forced_m=forced, rock=result.rock,
+                                    unusable=result.unusable,
+                                    flagged=qc_flagged(result.qc_flags)).layers
             windows = sand_windows(layers, s.field.throw_max_m)
         cross = windows[~windows["self_juxtaposed"]]
         verdicts = window_verdicts(ref, layers, windows, thr, leak)
@@ -244,7 +286,7 @@ def sweep_screening(
         row = {
             "sand_cutoff": sand, "shale_cutoff": shale, "min_bed_m": bed,
             "is_reference": k == 0, "layers": len(layers),
-            "sands": sum(x == "sand" for x in layers.lithology),
+            "sands": int(np.sum(layers.reservoir)),
             "net_to_gross": net_to_gross(layers),
             "sand_sand_windows": len(cross),
             "min_window_sgr_pct": float(cross["sgr_min_pct"].min()) if len(cross) else np.nan,
@@ -253,9 +295,18 @@ def sweep_screening(
             "new_leak_windows": new_leaks,
             "windows_changed": sum(v != r for v, r in zip(verdicts, ref_verdict)),
         }
+        if reference_labels is not None:
+            sc = rock_scores(called_reservoir(result.depth_m, layers.top_m, layers.base_m,
+                                              layers.reservoir), reference_labels)
+            row |= {"rock_precision": sc["precision"], "rock_recall": sc["recall"],
+                    "rock_balanced_accuracy": sc["balanced_accuracy"]}
         row.update(zip(names, verdicts))
         rows.append(row)
-    table = pd.DataFrame(rows, columns=SWEEP_COLUMNS + names)
+    rock_cols = ROCK_COLUMNS if reference_labels is not None else []
+    table = pd.DataFrame(rows, columns=SWEEP_COLUMNS + rock_cols + names)
+    if rock_cols:
+        ba = table["rock_balanced_accuracy"]
+        table["best_rock_match"] = ba.notna() & (ba >= ba.max() - 1e-9)
     got = table[names].to_numpy(dtype=object).reshape(len(table), len(names))
     want = np.array(ref_verdict, dtype=object)[None, :]
     changed = got != want
@@ -274,15 +325,23 @@ def sweep_screening(
 
 
 def sweep_file(path: str | Path, settings: ScreenSettings = ScreenSettings(), *,
-               tops: pd.DataFrame | None = None, **ranges) -> Sweep:
+               tops: pd.DataFrame | None = None, descriptions=None, label_curve=None,
+               **ranges) -> Sweep:
     """Screen a LAS file at ``settings`` and sweep it (ranges as in
-    :func:`sweep_screening`)."""
-    return sweep_screening(screen_file(path, settings, tops=tops), **ranges)
+    :func:`sweep_screening`; rock reference as in :func:`sweep_well`)."""
+    well = read_well(path, gr_curve=settings.input.gr_curve, depth_unit=settings.input.depth_unit)
+    return sweep_well(well, settings, tops=tops, descriptions=descriptions,
+                      label_curve=label_curve, **ranges)
 
 
-def sweep_well(well, settings: ScreenSettings = ScreenSettings(), *, tops=None, **ranges) -> Sweep:
-    """As :func:`sweep_file` for a :class:`~logprep.model.WellLog` already read."""
-    return sweep_screening(screen_well(well, settings, tops=tops), **ranges)
+def sweep_well(well, settings: ScreenSettings = ScreenSettings(), *, tops=None,
+               descriptions=None, label_curve=None, **ranges) -> Sweep:
+    """As :func:`sweep_file` for a :class:`~logprep.model.WellLog` already read.  The rock
+    reference (:func:`rock_reference`) is used when ``descriptions`` is given or the well
+    carries a label curve."""
+    result = screen_well(well, settings, tops=tops)
+    labels = rock_reference(result, descriptions, label_curve)
+    return sweep_screening(result, reference_labels=labels, **ranges)
 
 
 def stable_settings(sweep: Sweep) -> pd.DataFrame:
