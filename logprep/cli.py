@@ -11,6 +11,7 @@ from logprep import __version__
 from logprep.cli_rock import print_tune_summary, rock_options, tune_rock_options
 from logprep.cli_conventions import fault_convention_options
 from logprep.errors import LogprepError
+from logprep.io.safetext import escape_line
 from logprep.run.fault_options import add_fault_options, faults_after_batch, faults_before_batch
 
 # the science is imported only where a command or its options need it (fast --version)
@@ -220,6 +221,7 @@ def _progress(stream):
 
 
 def cmd_screen(args) -> int:
+    from logprep.run.contain import final_line, print_error
     from logprep.run.batch import screen_paths
     from logprep.io.examples import example_logs_dir
 
@@ -249,24 +251,19 @@ def cmd_screen(args) -> int:
         read_locations(args.locations)  # likewise a bad locations file
     faults = faults_before_batch(args, paths, settings)
     report = screen_paths(
-        paths, args.out, settings,
-        on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
-        progress=_progress(sys.stderr),
+        paths, args.out, settings, on_error=print_error, progress=_progress(sys.stderr),
         jobs=args.jobs,
-        sheets=not args.no_sheet, **faults.batch_kwargs,
+        sheets=not args.no_sheet, **faults.batch_kwargs, time_limit_s=args.well_time_limit,
     )
     for msg in report.warnings:
         print(f"warning: {msg}", file=sys.stderr)
-    ok = len(report.rows) - len(report.failures)
-    print(f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed; "
-          f"results in {args.out}, summary {report.summary_path}")
+    print(final_line(report, args.out))
     failed = bool(report.failures)
     if args.pairs:
         from logprep.run.pairs import screen_pairs
 
         rows = screen_pairs(paths, args.pairs, args.out, settings,
-                            on_error=lambda msg: print(f"error: {msg}", file=sys.stderr),
-                            sheets=not args.no_sheet)
+                            on_error=print_error, sheets=not args.no_sheet)
         bad = sum(r["status"] != "ok" for r in rows)
         print(f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed; "
               f"summary {args.out}/pairs_summary.csv")
@@ -338,6 +335,8 @@ def build_parser() -> argparse.ArgumentParser:
     _add_config_option(p)
     p.add_argument("--jobs", type=int, default=1, metavar="N",
                    help="screen wells in N worker processes (default: 1)")
+    p.add_argument("--well-time-limit", type=float, default=900.0, metavar="S", help="seconds "
+                   "a well may take before it is stopped as an error; 0 = none (default: %(default)g)")
     p.add_argument("--no-sheet", action="store_true",
                    help="write tables and fields only, no PDF/PNG sheets (fast, for large batches)")
     p.add_argument("--pairs", metavar="FILE",
@@ -409,7 +408,7 @@ def main(argv: list[str] | None = None) -> int:
             warnings.simplefilter("ignore", RuntimeWarning)
             return args.func(args)
     except LogprepError as exc:
-        print(f"logprep: error: {exc}", file=sys.stderr)
+        print(f"logprep: error: {escape_line(exc)}", file=sys.stderr)
         return EXIT_USAGE
     except KeyboardInterrupt:
         print("logprep: interrupted; files already written are complete", file=sys.stderr)

@@ -66,6 +66,10 @@ class WellLog:
         ``~Well`` and ``~Parameter`` items (mnemonic -> value as text).
     header_units : mapping of str to str
         Units of those header items as read (``EKB`` in ``M`` or ``FT``, ...).
+    warnings : tuple of str
+        What the reader changed or doubts (encoding guessed, readings set missing, too
+        few samples, a clipped GR...), shown in ``qc.csv``, on the sheet and in
+        ``summary.csv``.
     """
 
     name: str
@@ -78,6 +82,7 @@ class WellLog:
     gr_mnemonic: str
     header: Mapping[str, str] = field(default_factory=dict)
     header_units: Mapping[str, str] = field(default_factory=dict)
+    warnings: tuple[str, ...] = ()
 
     def __post_init__(self) -> None:
         object.__setattr__(self, "depth_m", _frozen(self.depth_m))

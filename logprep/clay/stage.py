@@ -73,7 +73,8 @@ def clay_volume(well: WellLog, settings: ClaySettings = ClaySettings(),
     gr_all = well.gr_api
     valid = np.flatnonzero(np.isfinite(gr_all))
     if valid.size < 2:
-        raise SettingsError(f"{well.source}: fewer than two valid GR samples")
+        raise SettingsError(f"{well.source}: fewer than two valid GR samples; check the GR "
+                            "curve (or name another with --gr-curve)")
     sl = slice(valid[0], valid[-1] + 1)
     depth, gr_read = well.depth_m[sl], gr_all[sl]
     notes = []

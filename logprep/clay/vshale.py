@@ -53,13 +53,15 @@ def gamma_ray_index(gr_api, gr_clean_api: float, gr_shale_api: float, *, clip: b
     clean = np.asarray(gr_clean_api, dtype=float)
     shale = np.asarray(gr_shale_api, dtype=float)
     if not (np.all(np.isfinite(clean)) and np.all(np.isfinite(shale))):
-        raise SettingsError("GR clean and shale lines must be finite numbers")
+        raise SettingsError("GR clean and shale lines must be finite numbers; set --gr-clean "
+                            "and --gr-shale to API values or percentiles such as p5")
     if np.any(clean >= shale):
         k = np.argmax(np.broadcast_to(clean >= shale, np.broadcast(clean, shale).shape))
         c, s = np.broadcast_to(clean, np.broadcast(clean, shale).shape).flat[k], \
             np.broadcast_to(shale, np.broadcast(clean, shale).shape).flat[k]
         raise SettingsError(
-            f"GR clean line ({c:g} API) must be below the shale line ({s:g} API)"
+            f"GR clean line ({c:g} API) must be below the shale line ({s:g} API); set "
+            "--gr-clean below --gr-shale (or check the GR curve: it may be nearly constant)"
         )
     igr = (np.asarray(gr_api, dtype=float) - clean) / (shale - clean)
     return np.clip(igr, 0.0, 1.0) if clip else igr
@@ -152,7 +154,8 @@ def resolve_endpoint(setting: float | str, gr_api) -> float:
         gr = np.asarray(gr_api, dtype=float)
         gr = gr[np.isfinite(gr)]
         if gr.size == 0:
-            raise SettingsError("cannot pick a GR percentile: no valid readings")
+            raise SettingsError("cannot pick a GR percentile: no valid readings; check the GR "
+                                "curve or give --gr-clean/--gr-shale in API")
         return float(np.percentile(gr, q))
     return float(setting)
 

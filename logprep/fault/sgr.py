@@ -117,7 +117,8 @@ def node_step_m(depth_m) -> float:
     """The node step of the field: the median sample step of the log (m)."""
     d = np.diff(np.asarray(depth_m, float))
     if d.size == 0 or not np.median(d) > 0:
-        raise SettingsError("the SGR field needs at least two increasing depth samples")
+        raise SettingsError("the SGR field needs at least two increasing depth samples; "
+                            "check the depth column")
     return float(np.median(d))
 
 

@@ -8,17 +8,21 @@ gives, or, failing both, by a curve whose unit is API.
 
 from __future__ import annotations
 
-import hashlib
+import logging
 import warnings
 from pathlib import Path
-
-import logging
 
 import lasio
 import numpy as np
 
 from logprep.errors import CurveNotFoundError, LasReadError
+from logprep.io.fastascii import header_items, read_las_data
+from logprep.io.lastext import load_las_source
 from logprep.model import WellLog
+from logprep.io.safetext import show_path
+from logprep.io.sanity import (
+    bound_values, check_depth_index, check_depth_range, quirk_warnings, wrap_warning,
+)
 
 FT_TO_M = 0.3048  # exact, by definition of the international foot
 
@@ -71,25 +75,6 @@ def register_gr_alias(mnemonic: str, *, first: bool = False) -> None:
     GR_ALIASES.insert(0, name) if first else GR_ALIASES.append(name)
 
 
-def _sha256(path: Path) -> str:
-    h = hashlib.sha256()
-    with path.open("rb") as f:
-        for chunk in iter(lambda: f.read(1 << 20), b""):
-            h.update(chunk)
-    return h.hexdigest()
-
-
-def _bom_encoding(path: Path) -> str | None:
-    """Encoding named by a byte-order mark, else None (lasio's own default)."""
-    with path.open("rb") as f:
-        head = f.read(4)
-    if head.startswith((b"\xff\xfe", b"\xfe\xff")):
-        return "utf-16"
-    if head.startswith(b"\xef\xbb\xbf"):
-        return "utf-8-sig"
-    return None
-
-
 def _numeric(values) -> np.ndarray:
     """A curve as floats; text that is not a number becomes NaN."""
     arr = np.asarray(values)
@@ -133,7 +118,8 @@ def find_curve(
         if key in by_upper:
             return by_upper[key]
         raise CurveNotFoundError(
-            f"no curve named {wanted!r} (found {', '.join(mnemonics) or 'none'})"
+            f"no curve named {wanted!r} (found {', '.join(mnemonics) or 'none'}); "
+            "check the name given with --gr-curve against the ~Curve section"
         )
     for alias in CURVE_ALIASES[kind]:
         if alias in by_upper:
@@ -144,9 +130,9 @@ def find_curve(
                 return m
     if not required:
         return None
-    hint = "; name one with --gr-curve" if kind == "gr" else ""
+    fix = "name one with --gr-curve" if kind == "gr" else "add the curve to the file"
     raise CurveNotFoundError(
-        f"no {_KIND_NAMES.get(kind, kind)} curve (found {', '.join(mnemonics) or 'no curves'}){hint}"
+        f"no {_KIND_NAMES.get(kind, kind)} curve (found {', '.join(mnemonics) or 'no curves'}); {fix}"
     )
 
 
@@ -168,12 +154,12 @@ def read_well_name(path: str | Path) -> str:
     """The ``WELL`` header item of a LAS file, reading the header only (several times
     quicker than :func:`read_well` on a large file); ``""`` when the file cannot be read
     as LAS or has no WELL item."""
-    path = Path(path)
     try:
+        source = load_las_source(path)
         with warnings.catch_warnings():
             warnings.simplefilter("ignore")
-            las = lasio.read(str(path), ignore_data=True, encoding=_bom_encoding(path))
-    except Exception:  # lasio raises many types for unreadable input; the caller only matches names
+            las = lasio.read(source.header + "~A\n")
+    except Exception:  # noqa: BLE001 - lasio raises many types; the caller only matches names
         return ""
     return str(las.well["WELL"].value).strip() if "WELL" in las.well else ""
 
@@ -181,11 +167,11 @@ def read_well_name(path: str | Path) -> str:
 def read_well_header(path: str | Path) -> dict[str, str]:
     """The ``~Well`` items of a LAS file (mnemonic -> value as text), reading the header
     only; empty when the file cannot be read as LAS."""
-    path = Path(path)
     try:
+        source = load_las_source(path)  # checked, decoded and made safe like read_well
         with warnings.catch_warnings():
             warnings.simplefilter("ignore")
-            las = lasio.read(str(path), ignore_data=True, encoding=_bom_encoding(path))
+            las = lasio.read(source.header + "~A\n")
     except Exception:  # noqa: BLE001 - lasio raises many types for unreadable input
         return {}
     return {item.mnemonic: str(item.value) for item in las.well}
@@ -196,78 +182,107 @@ def read_well(
     *,
     gr_curve: str | None = None,
     depth_unit: str | None = None,
+    fast: bool = True,
 ) -> WellLog:
     """Read one LAS file.
 
     Parameters
     ----------
     path : str or Path
-        The LAS file (versions 1.2 and 2.0; 3.0 where lasio reads it).
+        The LAS file (versions 1.2, 2.0 and 3.0; LAS 3.0 data sets other than the log
+        are not read).
     gr_curve : str, optional
         Gamma-ray mnemonic to use instead of the alias search.
     depth_unit : str, optional
         Unit of the depth index (``m`` or ``ft``) when the file does not state one, or to
         override a wrong one.
+    fast : bool
+        Parse plain data sections with the C parser (:mod:`logprep.io.fastascii`); False
+        reads every file with lasio alone (same values, slower).
 
     Returns
     -------
     WellLog
-        Depth in metres, increasing; all curves with missing values as NaN.
+        Depth in metres, increasing; all curves with missing values as NaN; ``warnings``
+        naming what the reader changed or doubts.
 
     Raises
     ------
     LasReadError
-        The file is missing, empty, not LAS, has no data, no depth index, a time index,
-        or a depth that repeats or goes back and forth.
+        The file is missing, empty, binary, too large, not LAS, has no data, no depth
+        index, a time index, a depth beyond physical bounds, or a depth that repeats or
+        goes back and forth.
     CurveNotFoundError
         No gamma-ray curve could be found (or ``gr_curve`` is absent).
     """
     path = Path(path)
-    if not path.is_file():
-        raise LasReadError(f"{path}: file not found")
-    if path.stat().st_size == 0:
-        raise LasReadError(f"{path}: file is empty")
+    where = show_path(path)
+    source = load_las_source(path)
+    sample, has_rows = bytes(source.data[:65536]), source.has_rows()
+    data = read_las_data(source, fast=fast)
+    source.drop_data()  # the file's bytes are not needed any more
+    notes = list(source.warnings)
+    wrap_note = wrap_warning(source.wrap, sample, len(data.columns), source.delimiter == "COMMA")
+    notes += [wrap_note] if wrap_note else []
     try:
-        with warnings.catch_warnings():
-            warnings.simplefilter("ignore")
-            las = lasio.read(str(path), encoding=_bom_encoding(path))
-    except Exception as exc:  # lasio raises many types for unreadable input
-        reason = str(exc).strip().splitlines()[0] if str(exc).strip() else type(exc).__name__
-        raise LasReadError(f"{path}: not a readable LAS file ({reason})") from exc
-    try:
-        return _to_well_log(path, las, gr_curve=gr_curve, depth_unit=depth_unit)
+        return _to_well_log(path, source, data, notes, has_rows=has_rows,
+                            gr_curve=gr_curve, depth_unit=depth_unit)
     except CurveNotFoundError as exc:
-        raise CurveNotFoundError(f"{path}: {exc}") from None
+        raise CurveNotFoundError(f"{where}: {exc}") from None
     except LasReadError as exc:
-        raise LasReadError(f"{path}: {exc}") from None
+        raise LasReadError(f"{where}: {exc}") from None
 
 
-def _to_well_log(path: Path, las, *, gr_curve, depth_unit) -> WellLog:
-    if not las.curves or las.data is None or np.size(las.data) == 0:
-        raise LasReadError("no ~A data section (or no curves)")
-    columns = [_numeric(c.data) for c in las.curves]
-    numeric = [0] + [
-        j for j in range(1, len(columns))
-        if np.asarray(las.curves[j].data).dtype.kind in "fiu" or np.any(np.isfinite(columns[j]))
-    ]
-    data = np.column_stack([columns[j] for j in numeric])
-    if data.shape[0] == 0:
-        raise LasReadError("no data rows")
-    index_item = las.curves[0]
-    mnemonics = [las.curves[j].mnemonic for j in numeric]
-    units = {c.mnemonic: (c.unit or "").strip() for c in las.curves}
+def _text_gr_check(parsed, numeric: list[int], gr_curve: str | None) -> None:
+    """A gamma-ray curve that holds only text gets its own message, not 'no curve'."""
+    dropped = [j for j in range(1, len(parsed.columns)) if j not in numeric]
+    for j in dropped:
+        name = parsed.mnemonics[j]
+        wanted = (gr_curve or "").strip().upper()
+        if _base_mnemonic(name) in (GR_ALIASES if not wanted else [wanted]):
+            first = str(np.asarray(parsed.columns[j])[0])[:40]
+            raise CurveNotFoundError(
+                f"gamma-ray curve {name} holds text, not numbers (first value {first!r}); "
+                "correct the ~A values (numbers separated by blanks) or name another "
+                "curve with --gr-curve")
 
-    unit_read = (depth_unit or index_item.unit or "").strip()
+
+def _to_well_log(path: Path, source, parsed, notes: list[str], *, has_rows: bool,
+                 gr_curve, depth_unit) -> WellLog:
+    las = parsed.las
+    if not parsed.columns or not np.size(parsed.columns[0]):
+        what = "no data rows under ~A" if has_rows \
+            else "no log data section (~A, or ~Log_Data in LAS 3.0)"
+        raise LasReadError(f"{what}; a LAS file for screening needs depth-indexed log data: "
+                           "export the log again with its data")
+    if parsed.engine == "fast":  # every column is a number already (and ours to change)
+        numeric, cols = list(range(len(parsed.columns))), list(parsed.columns)
+    else:
+        floats = [_numeric(c) for c in parsed.columns]
+        numeric = [0] + [
+            j for j in range(1, len(floats))
+            if np.asarray(parsed.columns[j]).dtype.kind in "fiu" or np.any(np.isfinite(floats[j]))
+        ]
+        cols = [floats[j] for j in numeric]
+    index_mnemonic, index_unit = parsed.mnemonics[0], parsed.units[0]
+    if index_mnemonic.upper().startswith("UNKNOWN"):
+        raise LasReadError("no ~Curve section naming the data columns; add one (one line "
+                           "per column, the depth first, e.g. 'DEPT.M : DEPTH')")
+    _text_gr_check(parsed, numeric, gr_curve)
+    mnemonics = [parsed.mnemonics[j] for j in numeric]
+    units = dict(zip(parsed.mnemonics, parsed.units))
+
+    unit_read = (depth_unit or index_unit or "").strip()
     unit_key = unit_read.upper()
-    if unit_key in _TIME_UNITS or index_item.mnemonic.upper() in {"TIME", "ETIM"}:
+    if unit_key in _TIME_UNITS or index_mnemonic.upper() in {"TIME", "ETIM"}:
         raise LasReadError(
-            f"index {index_item.mnemonic} [{index_item.unit}] is time, not depth; "
-            "logprep needs a depth-indexed log"
+            f"index {index_mnemonic} [{index_unit}] is time, not depth; logprep needs a "
+            "depth-indexed log: export the log against depth"
         )
     if unit_key not in DEPTH_UNITS_M:
         hint = "pass --depth-unit m or ft" if not unit_key else "pass --depth-unit m or ft to override"
         raise LasReadError(
-            f"depth index {index_item.mnemonic} has unit {unit_read!r}, not metres or feet; {hint}"
+            f"depth index {index_mnemonic} has unit {unit_read!r}, not metres or feet; {hint}"
         )
 
     null = las.well["NULL"].value if "NULL" in las.well else None
@@ -277,48 +292,56 @@ def _to_well_log(path: Path, las, *, gr_curve, depth_unit) -> WellLog:
             sentinels.append(float(null))
     except (TypeError, ValueError):
         pass
-    for s in sentinels:
-        data[np.isclose(data, s, rtol=0, atol=1e-6)] = np.nan
+    with np.errstate(invalid="ignore"):
+        for col in cols:  # column by column: no temporary the size of the whole log
+            for s in sentinels:
+                col[np.abs(col - s) <= 1e-6] = np.nan
 
-    depth = data[:, 0] * DEPTH_UNITS_M[unit_key]
+    raw_depth = cols[0]
+    with np.errstate(over="ignore", invalid="ignore"):
+        depth = raw_depth * DEPTH_UNITS_M[unit_key]
     keep = np.isfinite(depth)
-    data, depth = data[keep], depth[keep]
+    if not keep.all():
+        cols, depth = [c[keep] for c in cols], depth[keep]
     if depth.size < 2:
-        raise LasReadError("fewer than two depth samples")
+        raise LasReadError(f"fewer than two depth samples ({depth.size} with a valid depth); "
+                           "a screen needs a log over a depth interval: check the depth column")
+    check_depth_range(depth)
     step = np.diff(depth)
     if np.all(step < 0):
-        data, depth = data[::-1], depth[::-1]
+        cols, depth = [c[::-1] for c in cols], depth[::-1]
         step = np.diff(depth)
+    raw_depth = cols[0]
     if np.any(step == 0):
         i = int(np.flatnonzero(step == 0)[0])
         raise LasReadError(
-            f"duplicate depth {data[i, 0]:g} {unit_read} in {index_item.mnemonic}; "
+            f"duplicate depth {raw_depth[i]:g} {unit_read} in {index_mnemonic}; "
             "remove the repeated rows"
         )
     if np.any(step < 0):
         i = int(np.flatnonzero(step < 0)[0])
         raise LasReadError(
-            f"depth goes back at {data[i + 1, 0]:g} {unit_read} (after {data[i, 0]:g}); "
-            "the depth index must increase or decrease throughout"
+            f"depth goes back at {raw_depth[i + 1]:g} {unit_read} (after {raw_depth[i]:g}); "
+            "the depth index must increase or decrease throughout: sort the rows or split "
+            "the file at the repeat"
         )
+    check_depth_index(depth)
 
     curve_names = mnemonics[1:]
     gr = find_gr_curve(curve_names, units, gr_curve)
-    curves = {m: data[:, j + 1] for j, m in enumerate(curve_names)}
+    curves = {m: cols[j + 1] for j, m in enumerate(curve_names)}  # WellLog copies them
+    notes += bound_values(curves, gr)
     if not np.any(np.isfinite(curves[gr])):
-        raise CurveNotFoundError(f"gamma-ray curve {gr} has no valid samples")
+        raise CurveNotFoundError(
+            f"gamma-ray curve {gr} has no valid samples (all NULL); name another with --gr-curve")
+    notes += quirk_warnings(depth, curves[gr], gr)
 
-    header: dict[str, str] = {}
-    header_units: dict[str, str] = {}
-    for section in ("well", "params"):
-        for item in las.sections.get("Well" if section == "well" else "Parameter", []):
-            header.setdefault(item.mnemonic, str(item.value).strip())
-            header_units.setdefault(item.mnemonic, (item.unit or "").strip())
+    header, header_units = header_items(las, source.renamed)
     name = header.get("WELL", "").strip() or path.stem
     return WellLog(
         name=name,
         source=str(path),
-        sha256=_sha256(path),
+        sha256=source.sha256,
         depth_m=depth,
         curves=curves,
         units=units,
@@ -326,4 +349,5 @@ def _to_well_log(path: Path, las, *, gr_curve, depth_unit) -> WellLog:
         gr_mnemonic=gr,
         header=header,
         header_units=header_units,
+        warnings=tuple(notes),
     )

@@ -61,4 +61,4 @@ def las_bytes(result) -> bytes:
         las.append_curve(name, np.asarray(values, dtype=float), unit=unit, descr=descr)
     buf = io.StringIO()
     las.write(buf, version=2.0, wrap=False, fmt="%.5f")
-    return buf.getvalue().encode()
+    return buf.getvalue().encode("utf-8", errors="backslashreplace")  # undecodable names

@@ -11,6 +11,7 @@ import tempfile
 import warnings
 from pathlib import Path
 
+import matplotlib
 import pandas as pd
 from matplotlib.backends.backend_agg import FigureCanvasAgg
 from matplotlib.backends.backend_pdf import PdfPages
@@ -20,9 +21,10 @@ from logprep.fault.juxtaposition import WINDOW_COLUMNS
 from logprep.io.survey import layer_tst_m
 from logprep.report.lasexport import las_bytes
 from logprep.clay.qc import any_flag, layer_fraction, qc_table
+from logprep.io.safetext import safe_cell
 
 SUMMARY_COLUMNS = ["well", "source", "status", "message", "layers", "sand_sand_windows",
-                   "min_window_sgr_pct", "folder"]
+                   "min_window_sgr_pct", "folder", "warnings"]
 
 
 def current_umask() -> int:
@@ -77,7 +79,15 @@ def prepare_out_dir(out_dir: str | Path) -> Path:
 
 
 def csv_bytes(frame: pd.DataFrame) -> bytes:
-    return frame.to_csv(index=False, float_format="%.10g", lineterminator="\n").encode()
+    """A table as CSV; text cells made safe (control characters escaped, formula-like
+    text neutralised: see :func:`logprep.io.safetext.safe_cell`)."""
+    text_cols = [c for c in frame.columns if frame[c].dtype == object or pd.api.types.is_string_dtype(frame[c])]
+    if text_cols:
+        frame = frame.copy()
+        for c in text_cols:
+            frame[c] = frame[c].map(safe_cell).astype(object)
+    return frame.to_csv(index=False, float_format="%.10g", lineterminator="\n").encode(
+        "utf-8", errors="backslashreplace")
 
 
 @contextmanager
@@ -89,6 +99,13 @@ def _missing_glyphs_quiet():
         warnings.filterwarnings("ignore", message=r"Glyph \d+ .*missing from font",
                                 category=UserWarning)
         yield
+
+
+def plain_text():
+    """A context in which figures made draw all text as plain text: well names, mnemonics
+    and paths from files (``A$\\foo$``) are never read as math markup.  Make every figure
+    inside it (the setting is read when a text is created)."""
+    return matplotlib.rc_context({"text.parse_math": False})
 
 
 def pdf_bytes(figures) -> bytes:
@@ -133,6 +150,26 @@ def folder_name(source: str | Path, taken: set[str]) -> str:
     return name
 
 
+def well_folder_name(source: str | Path, taken: set[str]) -> str:
+    """:func:`folder_name` for a well: never ``pair_...``, the prefix of well-pair folders,
+    so a file named like a pair cannot share a folder with one."""
+    stem = Path(source).stem
+    if _UNSAFE.sub("_", stem).lstrip(".").lower().startswith("pair_"):
+        source = f"well_{stem}.las"
+    return folder_name(source, taken)
+
+
+def qc_with_warnings(result) -> pd.DataFrame:
+    """``qc.csv``: the flagged runs, then one ``warning`` row per reader warning."""
+    table = qc_table(result.depth_m, result.qc_flags)
+    notes = getattr(result, "warnings", ())
+    if not notes:
+        return table
+    extra = pd.DataFrame([{"flag": "warning", "meaning": w, "action": "see the meaning"}
+                          for w in notes], columns=table.columns)
+    return pd.concat([table.astype(object), extra.astype(object)], ignore_index=True)
+
+
 def with_window_numbers(windows: pd.DataFrame) -> pd.DataFrame:
     """The windows with a ``window`` column (1, 2, ... in row order) right after the
     contract columns: the number each window carries on the sheet, in ``logprep tune``
@@ -158,7 +195,7 @@ def well_tables(result) -> dict[str, pd.DataFrame]:
     return {
         "layers.csv": layers,
         "juxtapositions.csv": windows[WINDOW_COLUMNS + extra],
-        "qc.csv": qc_table(result.depth_m, result.qc_flags),
+        "qc.csv": qc_with_warnings(result),
         "picks.csv": result.picks,
     }
 
@@ -171,9 +208,10 @@ def render_well(result, sheet_builder=None) -> dict[str, bytes]:
     if getattr(result, "grid", None) is not None:
         files["sgr_field.npz"] = result.grid.npz_bytes()
     if sheet_builder is not None:
-        pages = sheet_builder(result)
-        files["sheet.pdf"] = pdf_bytes(pages)
-        files["sheet.png"] = png_bytes(pages[0])
+        with plain_text():
+            pages = sheet_builder(result)
+            files["sheet.pdf"] = pdf_bytes(pages)
+            files["sheet.png"] = png_bytes(pages[0])
     files["curves.las"] = las_bytes(result)
     files["notes.txt"] = notes_bytes(result.notes)
     return files

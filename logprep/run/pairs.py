@@ -22,7 +22,7 @@ from logprep.fault.envelope import depth_datum
 from logprep.fault.pair_capacity import pair_seal_capacity_table
 from logprep.fault.settings import capacity_params
 from logprep.report.writers import (
-    csv_bytes, folder_name, pdf_bytes, png_bytes, with_window_numbers, write_bytes_atomic,
+    csv_bytes, folder_name, pdf_bytes, plain_text, png_bytes, with_window_numbers, write_bytes_atomic,
 )
 from logprep.io.tops import well_key
 from logprep.fault.twowell import (
@@ -137,11 +137,12 @@ def screen_pairs(
             files_out = {"juxtapositions.csv": csv_bytes(with_window_numbers(windows)),
                          "sgr_field.npz": grid.npz_bytes()}
             if sheets:
-                from logprep.report.pair_sheet import PairScreening, build_pair_sheet
+                with plain_text():
+                    from logprep.report.pair_sheet import PairScreening, build_pair_sheet
 
-                pages = build_pair_sheet(PairScreening(fw, hw, shift, p.marker or "", windows, grid,
-                                                       settings))
-                files_out.update({"sheet.pdf": pdf_bytes(pages), "sheet.png": png_bytes(pages[0])})
+                    pages = build_pair_sheet(PairScreening(fw, hw, shift, p.marker or "", windows, grid,
+                                                           settings))
+                    files_out.update({"sheet.pdf": pdf_bytes(pages), "sheet.png": png_bytes(pages[0])})
             folder = folder_name(f"pair_{p.footwall}_{p.hangingwall}", taken)
             for fname, data in files_out.items():
                 write_bytes_atomic(out / folder / fname, data)

@@ -74,6 +74,12 @@ class WellScreening:
     survey: tuple | None = None
 
     @property
+    def warnings(self) -> tuple[str, ...]:
+        """What the reader changed or doubts in this well (see :attr:`WellLog.warnings`),
+        shown in ``qc.csv``, on the sheet and in ``summary.csv``."""
+        return tuple(self.well.warnings)
+
+    @property
     def min_window_sgr_pct(self) -> float:
         """Lowest SGR over all sand-sand windows that are not a sand against itself
         (NaN when there are none)."""
@@ -116,7 +122,8 @@ def _column_stages(well: WellLog, settings: ScreenSettings, tops):
     picks = well_tops(well, inp.tops_file, tops)
     well, picks, depth_ref, survey_note, survey = deviated_well(well, inp.survey_dir, picks, with_survey=True)
     cv = clay_volume(well, settings.clay, picks)
-    notes = list(cv.notes) + ([survey_note] if survey_note else [])
+    notes = [f"warning: {w}" for w in well.warnings] + list(cv.notes) \
+        + ([survey_note] if survey_note else [])
     if (~np.isfinite(cv.vsh)).any():
         notes.append(f"{int((~np.isfinite(cv.vsh)).sum())} GR samples missing or replaced after "
                      "QC; Vsh interpolated there")

@@ -39,7 +39,7 @@ from logprep.layers.rockscore import called_reservoir, rock_scores
 from logprep.layers.stage import blocked_column
 from logprep.model import Layers
 from logprep.report.tune_figure import sweep_figure
-from logprep.report.writers import csv_bytes, pdf_bytes, png_bytes, write_bytes_atomic
+from logprep.report.writers import csv_bytes, pdf_bytes, plain_text, png_bytes, write_bytes_atomic
 from logprep.run.config import SETTINGS_FILE_NAME, settings_toml
 from logprep.run.pipeline import WellScreening, qc_flagged, screen_well
 from logprep.run.settings import ScreenSettings
@@ -365,12 +365,14 @@ def write_sweep(sweep: Sweep, out_dir: str | Path) -> dict[str, Path]:
     """Write ``tune.csv`` (the table), ``tune-windows.csv``, ``tune.pdf`` and ``tune.png``
     (the one-page figure) and ``logprep-settings.toml`` (the reference settings and the
     ranges) into ``out_dir``, each atomically.  Returns the paths by file name."""
-    fig = sweep_figure(sweep, stable_settings(sweep))
+    with plain_text():
+        fig = sweep_figure(sweep, stable_settings(sweep))
+        pdf, png = pdf_bytes([fig]), png_bytes(fig)
     files = {
         "tune.csv": csv_bytes(sweep.table),
         "tune-windows.csv": csv_bytes(sweep.windows),
-        "tune.pdf": pdf_bytes([fig]),
-        "tune.png": png_bytes(fig),
+        "tune.pdf": pdf,
+        "tune.png": png,
         SETTINGS_FILE_NAME: settings_toml(sweep.settings, sweep.ranges).encode("utf-8"),
     }
     out = Path(out_dir)

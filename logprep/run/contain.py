@@ -1,0 +1,117 @@
+"""Containment of one well's failure: a time limit per well, and unexpected exceptions
+turned into an error row plus a full traceback in a log file.
+
+A batch must finish whatever one file does.  :func:`contained` runs one well's work and
+returns either its result or an :class:`Outcome` describing the failure: a
+:class:`~logprep.errors.LogprepError` (a problem the user can fix) keeps its message;
+anything else is a bug in logprep, reported as ``internal error`` with its traceback so
+it can be fixed, without stopping the run.  The time limit uses ``SIGALRM`` and so
+applies where the well runs in a process's main thread (``--jobs 1`` and worker
+processes); elsewhere the well runs without one.
+"""
+
+from __future__ import annotations
+
+import signal
+import sys
+import threading
+import time
+import traceback
+from contextlib import contextmanager
+from dataclasses import dataclass
+from pathlib import Path
+
+from logprep.errors import LogprepError
+from logprep.io.safetext import escape_line, show_path
+
+INTERNAL_LOG_NAME = "logprep-internal-errors.log"
+"""File in the output folder that collects the traceback of every internal error."""
+
+
+class WellTimeLimitError(LogprepError, TimeoutError):
+    """One well took longer than the per-well time limit."""
+
+
+@dataclass
+class Outcome:
+    """How one well's work failed: ``message`` (one line, ``FILE: what; what to do``),
+    ``internal`` True for an unexpected exception, whose ``traceback`` is kept."""
+
+    message: str
+    internal: bool = False
+    traceback: str = ""
+
+
+@contextmanager
+def time_limit(seconds: float | None, where: str):
+    """Raise :class:`WellTimeLimitError` in the block after ``seconds`` (None or 0: no
+    limit; also none outside the main thread or where ``SIGALRM`` does not exist)."""
+    usable = (seconds and seconds > 0 and hasattr(signal, "SIGALRM")
+              and threading.current_thread() is threading.main_thread())
+    if not usable:
+        yield
+        return
+
+    def expire(signum, frame):
+        raise WellTimeLimitError(
+            f"{where}: still running after the per-well time limit of {seconds:g} s; raise it "
+            "with --well-time-limit (0 = none) or check the file (size, sampling)")
+
+    previous = signal.signal(signal.SIGALRM, expire)
+    signal.setitimer(signal.ITIMER_REAL, seconds)
+    try:
+        yield
+    finally:
+        signal.setitimer(signal.ITIMER_REAL, 0)
+        signal.signal(signal.SIGALRM, previous)
+
+
+def failure(exc: BaseException, path: Path) -> Outcome:
+    """The :class:`Outcome` of an exception raised while screening ``path``."""
+    where = show_path(path)
+    if isinstance(exc, LogprepError):
+        msg = escape_line(str(exc).splitlines()[0] if str(exc).strip() else type(exc).__name__)
+        if not msg.startswith(where):
+            msg = f"{where}: {msg}"
+        return Outcome(msg)
+    detail = escape_line(str(exc).strip().splitlines()[0][:160]) if str(exc).strip() else ""
+    what = f"{type(exc).__name__}{': ' + detail if detail else ''}"
+    return Outcome(
+        f"{where}: internal error ({what}); the other wells go on: please report this with "
+        f"{INTERNAL_LOG_NAME} from the output folder",
+        internal=True,
+        traceback="".join(traceback.format_exception(type(exc), exc, exc.__traceback__)),
+    )
+
+
+def log_internal(out_dir: Path, path: str, trace: str) -> None:
+    """Append one internal error's traceback to :data:`INTERNAL_LOG_NAME` in ``out_dir``."""
+    stamp = time.strftime("%Y-%m-%dT%H:%M:%SZ", time.gmtime())
+    with (Path(out_dir) / INTERNAL_LOG_NAME).open("a", encoding="utf-8", errors="backslashreplace") as f:
+        f.write(f"--- {stamp} {escape_line(path)}\n{trace}\n")
+
+
+def contained_screen(work, path: Path, time_limit_s: float | None):
+    """``(work(), None)``, or ``(None, Outcome)`` when it raised anything (a
+    :class:`KeyboardInterrupt` still stops the run) or ran over ``time_limit_s``."""
+    try:
+        with time_limit(time_limit_s, show_path(path)):
+            return work(), None
+    except Exception as exc:  # noqa: BLE001 - containment is the point: one well never stops a batch
+        return None, failure(exc, path)
+
+
+def print_error(msg: str) -> None:
+    """Print one failure as one escaped ``error:`` line on stderr."""
+    print(f"error: {escape_line(msg)}", file=sys.stderr)
+
+
+def final_line(report, out) -> str:
+    """The run's last line: counts, internal errors and paths skipped while scanning."""
+    ok = len(report.rows) - len(report.failures)
+    internal = report.internal_errors
+    bugs = (f" ({internal} internal error(s): tracebacks in "
+            f"{show_path(out)}/{INTERNAL_LOG_NAME}, please report)") if internal else ""
+    skipped = f"; {report.scan_line}" if report.scan_line else ""
+    return (f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed{bugs}; "
+            f"results in {show_path(out)}, summary {show_path(report.summary_path)}{skipped}")

@@ -1,0 +1,1 @@
+These are my notes on well 7.
