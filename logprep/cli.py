@@ -10,6 +10,7 @@ from pathlib import Path
 from logprep import __version__
 from logprep.cli_batch import add_batch_options, batch_backend
 from logprep.cli_rock import print_tune_summary, rock_options, tune_rock_options
+from logprep.cli_conventions import fault_convention_options
 from logprep.errors import LogprepError
 from logprep.io.safetext import escape_line
 from logprep.run.fault_options import add_fault_options, faults_after_batch, faults_before_batch
@@ -92,9 +93,6 @@ def _capacity_options(p: argparse.ArgumentParser, d) -> None:
                    help=f"temperature at sea level for --co2-density-mode eos (default: {d.capacity.surface_temp_c:g})")
     g.add_argument("--geothermal-gradient", dest="geothermal_gradient_c_per_km", type=float,
                    metavar="DEGC/KM", help=f"geothermal gradient (default: {d.capacity.geothermal_gradient_c_per_km:g})")
-    g.add_argument("--max-burial", dest="max_burial_m", type=float, metavar="M",
-                   help="maximum burial depth for the pressure envelope (default: each contact's "
-                        "depth below sea level, or as logged when the header has no elevation)")
     g.add_argument("--envelope-scale", dest="envelope_sgr_scale_pct", type=float, metavar="PCT",
                    help=f"SGR per decade of fault-zone pressure (default: {d.capacity.envelope_sgr_scale_pct:g})")
     g.add_argument("--envelope-bounds", dest="envelope_class_bounds_m", metavar="M,M",
@@ -162,7 +160,8 @@ def _pair_options(p: argparse.ArgumentParser, d) -> None:
 
 
 SETTINGS_OPTION_GROUPS = [_clay_options, _clay_quality_options, rock_options, _blocking_options,
-                          _fault_options, _capacity_options, _survey_options, _pair_options]
+                          _fault_options, _capacity_options, fault_convention_options,
+                          _survey_options, _pair_options]
 """Each adds one group of options whose ``dest`` is a :class:`ScreenSettings` field and
 whose default is None (not given); add a function here for a new group."""
 
@@ -251,6 +250,8 @@ def cmd_screen(args) -> int:
         field_smear=args.field_smear, force=args.force, **faults.batch_kwargs,
         time_limit_s=args.well_time_limit,
     )
+    for msg in report.warnings:
+        print(f"warning: {msg}", file=sys.stderr)
     print(final_line(report, args.out))
     failed = bool(report.failures)
     if args.pairs:

@@ -84,3 +84,33 @@ def test_blocking_invariants(vsh, min_bed, cuts):
     assert all(a != b for a, b in zip(L.lithology, L.lithology[1:]))
     if len(L) > 1:
         assert np.all(L.thickness_m >= min_bed - 1e-9)
+
+
+def test_fill_gaps_extends_the_ends_when_asked():
+    # Worked by hand: the end gaps take the nearest measured value and are marked filled.
+    d = np.arange(6.0)
+    v = np.array([np.nan, 0.0, np.nan, np.nan, 0.6, np.nan])
+    f, was = fill_gaps(d, v, extend_ends=True)
+    np.testing.assert_allclose(f, [0.0, 0.0, 0.2, 0.4, 0.6, 0.6])
+    assert was.tolist() == [True, False, True, True, False, True]
+
+
+def test_spike_on_the_last_sample_does_not_fail_the_well(tmp_path):
+    # A 30 API sand / 120 API shale / 30 API sand log with one 900 API spike on the last
+    # sample: QC replaces it, and the well is screened with the last sample's Vsh taken
+    # from the sample above (the sand, Vsh 0), marked filled.
+    from logprep.run.pipeline import screen_file
+
+    z = np.arange(100.0, 130.01, 0.5)
+    gr = np.where((z >= 110) & (z < 120), 120.0, 30.0)
+    gr[-1] = 900.0
+    rows = "".join(f"{a:.4f} {g:.4f}\n" for a, g in zip(z, gr))
+    path = tmp_path / "spike.las"
+    path.write_text(
+        "~VERSION INFORMATION\n VERS. 2.0 :\n WRAP. NO :\n~WELL INFORMATION\n"
+        f" STRT.M {z[0]} :\n STOP.M {z[-1]} :\n STEP.M 0.5 :\n NULL. -999.25 :\n"
+        " WELL. SPIKE-1 : WELL\n~CURVE INFORMATION\n DEPT.M : DEPTH\n GR.GAPI : GAMMA RAY\n"
+        "~A\n" + rows)
+    r = screen_file(path)
+    assert r.filled[-1] and r.vsh[-1] == pytest.approx(r.vsh[-2])
+    assert r.layers.lithology[-1] == "sand"

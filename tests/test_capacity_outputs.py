@@ -29,8 +29,11 @@ def test_table_has_capacity_columns_after_the_contract(hrm1):
     k = cols.index(CAPACITY_COLUMNS[0])
     assert cols[k:k + len(CAPACITY_COLUMNS)] == CAPACITY_COLUMNS
     w = hrm1.windows
-    assert set(w["verdict"]) <= {"leak", "uncertain", "seal"}
-    assert (w["column_gas_m"] > 0).all() and (w["fzp_bar"] > 0).all()
+    assert set(w["verdict"]) <= {"leak", "uncertain", "seal", "self"}
+    assert (w.loc[w["self_juxtaposed"], "verdict"] == "self").all()
+    sealing = ~w["verdict"].isin(["leak", "self"])
+    assert (w.loc[sealing, "column_gas_m"] > 0).all() and (w.loc[~sealing, "column_gas_m"] == 0).all()
+    assert (w["fzp_bar"] > 0).all()
     # HRM-1 (invented) has EKB 25 m: burial depth below sea level = logged depth - 25 m
     top = pd.concat([w["footwall_top_m"], w["hangingwall_top_m"] + w["throw_min_m"]], axis=1).max(axis=1)
     assert (w["burial_depth_m"] - (top - 25.0)).abs().max() < 1e-9

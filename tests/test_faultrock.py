@@ -67,3 +67,21 @@ def test_general_form_reduces_to_equal_cells():
         transmissibility_multiplier_cells(tf, kf, km, km, L, L),
         transmissibility_multiplier(tf, kf, km, L), rtol=1e-12,
     )
+
+
+def test_permeability_outside_the_fitted_range_is_flagged():
+    # Hand-worked from the Sperrevik et al. (2002) form (constants from memory): clay 0.1,
+    # z_max = z_f = 353 m: k = 80000 exp(-(1.94 + 1.42259 + (1.9415 - 12.5) 0.9^7))
+    # = 80000 exp(1.68762) = 432,479 mD, and 353 m is shallower than
+    # the 1.5-5 km the relation was fitted on (from memory): flagged, as is a fault rock
+    # more permeable than its 100 mD matrix.
+    from logprep.fault.faultrock import calibration_note, sperrevik_permeability_md
+
+    k = float(sperrevik_permeability_md(0.1, 353.0, 353.0))
+    expect = 80000 * np.exp(-(19.4 * 0.1 + 0.00403 * 353 + (0.0055 * 353 - 12.5) * 0.9 ** 7))
+    assert k == pytest.approx(expect, rel=1e-12) and k > 1e5
+    note = calibration_note(0.1, 20.0, 353.0, k, 1.0, 100.0)
+    assert "Sperrevik: burial 353 m outside the fitted 1500-5000 m" in note
+    assert "above the matrix 100 mD" in note and "Manzocchi" not in note
+    assert calibration_note(0.3, 20.0, 2500.0, 0.01, 0.05, 100.0) == ""
+    assert "Manzocchi: SGR 0.75" in calibration_note(0.75, 20.0, 2500.0, 1e-4, 1e-4, 100.0)

@@ -164,3 +164,24 @@ def test_cumulative_clay_total():
     bounds, clay = cumulative_clay(L)
     assert clay[-1] == pytest.approx(19.0)
     assert bounds.tolist() == [0, 20, 50]
+
+
+def test_heterolith_reservoir_above_a_net_to_gross():
+    # Worked by hand: shale 1000-1010 (Vsh 0.9), an interbedded stack 1010-1020 blocked as
+    # heterolith (Vsh 0.4, net-to-gross 0.6), shale 1020-1030 (0.9), sand 1030-1050 (0.06).
+    # The footwall sand faces the stack for throws 10-40 m; lowest SGR at z = 1050 m,
+    # t = 30 m: slipped interval [1020, 1050] = (10 x 0.9 + 20 x 0.06) / 30 = 34.0 %.
+    from logprep.fault.juxtaposition import reservoir_mask
+
+    L = Layers([1000.0, 1010.0, 1020.0, 1030.0], [1010.0, 1020.0, 1030.0, 1050.0],
+               [0.9, 0.4, 0.9, 0.06], ["shale", "heterolith", "shale", "sand"],
+               net_to_gross=[0.0, 0.6, 0.0, 1.0])
+    assert reservoir_mask(L).tolist() == [False, False, False, True]
+    assert reservoir_mask(L, 0.5).tolist() == [False, True, False, True]
+    assert reservoir_mask(L, 0.7).tolist() == [False, False, False, True]
+    plain = sand_windows(L, 100.0)
+    assert len(plain) == 1 and plain["self_juxtaposed"].all()
+    w = sand_windows(L, 100.0, reservoir=reservoir_mask(L, 0.5))
+    row = w[(w.footwall_layer == 3) & (w.hangingwall_layer == 1)].iloc[0]
+    assert (row.throw_min_m, row.throw_max_m) == (10.0, 40.0)
+    assert row.sgr_min_pct == pytest.approx(34.0, abs=1e-9)

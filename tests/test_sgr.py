@@ -228,3 +228,30 @@ def test_field_exact_when_boundaries_are_off_the_nodes():
         # float32 storage of a percentage: 1e-3 % absolute
         np.testing.assert_allclose(f.sgr_pct, ref, atol=1e-3, equal_nan=True)
         assert np.array_equal(f.juxtaposition, juxtaposition_grid(L, f.depth_m, f.throw_m))
+
+
+def test_field_snaps_large_throws_on_a_fine_log():
+    # 0.1 m sampling from 2000 m: the median step is 0.09999999999990905 m, so a throw of
+    # 110 m is 1100.000000001 steps.  Worked by hand: alternating 20 m beds, Vsh 0.1
+    # (sand) and 0.8 (shale) from 2000 m; at z = 2110 m and t = 110 m the slipped
+    # interval [2000, 2110] holds 3 x 20 m at 0.1, 2 x 20 m at 0.8 and 10 m at 0.8:
+    # 46 m of clay, SGR = 100 x 46 / 110 = 41.818 %.  The juxtaposition, counted in whole
+    # nodes (node k faces node k - 10 t; a node on a boundary belongs to the bed below),
+    # must match cell for cell, including the cells reaching the log top.
+    from logprep.fault.juxtaposition import _PAIR_CODE
+    depth = np.arange(2000.0, 2400.0, 0.1)
+    tops = np.arange(2000.0, 2400.0, 20.0)
+    n = tops.size
+    lay = Layers(tops, tops + 20.0, np.where(np.arange(n) % 2 == 0, 0.1, 0.8),
+                 ["sand" if i % 2 == 0 else "shale" for i in range(n)])
+    vsh = np.where(((depth - 2000.0 + 1e-6) // 20.0) % 2 == 0, 0.1, 0.8)
+    f = sgr_field(lay, depth, vsh, throw_max_m=200.0, throw_step_m=1.0, depth_step_m=None)
+    i, j = int(np.argmin(np.abs(f.depth_m - 2110.0))), int(np.searchsorted(f.throw_m, 110.0))
+    assert f.sgr_pct[i, j] == pytest.approx(100 * 46 / 110, abs=1e-4)
+    k = np.arange(f.depth_m.size)[:, None]
+    m = k - 10 * np.round(f.throw_m).astype(int)[None, :]
+    fw, hw = np.minimum(k // 200, n - 1), np.where(m >= 0, np.minimum(m // 200, n - 1), -1)
+    codes = lay.lithology_code
+    exact = np.where(hw < 0, 0, _PAIR_CODE[codes[fw], codes[np.maximum(hw, 0)]])
+    assert int((exact != f.juxtaposition).sum()) == 0
+    assert not np.isnan(f.sgr_pct[m >= 0]).any()

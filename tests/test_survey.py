@@ -120,6 +120,69 @@ def test_screen_on_tvd_with_survey(tmp_path, example_dir):
     assert layers["top_m"].iloc[0] == pytest.approx(tvd_top, abs=0.2)
     assert layers["base_m"].iloc[-1] == pytest.approx(tvd_base, abs=0.2)
     assert tvd_base - tvd_top < (md_base - md_top) * 0.95  # the hole is deviated
-    np.testing.assert_allclose(layers["tst_m"], layers["thickness_m"] * np.cos(np.radians(20)), rtol=1e-9)
+    # deviated: TST follows the hole's direction against the dip (azimuth 0 by default), so
+    # it is not TVT cos(dip); summed over the column it equals the distance between the bed
+    # planes through the column's top and base (planar beds; worked by hand)
+    from logprep.io.survey import md_at_tvd, position_at_md, bed_normal
+
+    assert not np.allclose(layers["tst_m"], layers["thickness_m"] * np.cos(np.radians(20)), rtol=1e-3)
+    ends = position_at_md(md_at_tvd(np.array([layers["top_m"].iloc[0], layers["base_m"].iloc[-1]]), md, inc, azi),
+                          md, inc, azi)
+    assert layers["tst_m"].sum() == pytest.approx(abs((ends[1] - ends[0]) @ bed_normal(20.0, 0.0)), rel=1e-4)
     z = np.load(out / "HRM-5" / "sgr_field.npz")
     assert z["depth_m"][-1] == pytest.approx(tvd_base, abs=1.0)
+
+
+def test_tst_takes_the_well_direction_against_the_dip():
+    # Worked by hand: 10 m MD at 30 deg inclination through beds dipping 20 deg.
+    # TST = 10 |cos30 cos20 - sin30 sin20 cos(azi - dip_azi)|: drilling down-dip (same
+    # azimuth) 10 (0.81380 - 0.17101) = 6.4279 m; up-dip 10 (0.81380 + 0.17101) = 9.8481 m;
+    # along strike 8.1380 m (= TVT cos dip, the vertical-well formula).
+    from logprep.io.survey import straight_hole_tst_m
+
+    assert straight_hole_tst_m(10.0, 30.0, 90.0, 20.0, 90.0) == pytest.approx(6.4279, abs=1e-4)
+    assert straight_hole_tst_m(10.0, 30.0, 270.0, 20.0, 90.0) == pytest.approx(9.8481, abs=1e-4)
+    assert straight_hole_tst_m(10.0, 30.0, 0.0, 20.0, 90.0) == pytest.approx(8.1380, abs=1e-4)
+    # vertical well: TVT cos dip whatever the azimuths
+    assert straight_hole_tst_m(10.0, 0.0, 0.0, 20.0, 123.0) == pytest.approx(10 * np.cos(np.radians(20)))
+
+
+def test_tst_along_a_surveyed_path():
+    # A survey held at 30 deg inclination, azimuth 090 from 1000 m MD: the stretch
+    # 1100-1110 m MD is straight, so its TST is the hand-worked 6.4279 m down-dip (beds
+    # dipping 20 deg towards 090) and 9.8481 m up-dip (towards 270).
+    from logprep.io.survey import position_at_md, stratigraphic_thickness_along_path_m, tvd_at_md
+
+    md, inc, azi = np.array([0.0, 1000.0, 1050.0, 2000.0]), np.array([0.0, 0.0, 30.0, 30.0]), np.full(4, 90.0)
+    down = stratigraphic_thickness_along_path_m(1100.0, 1110.0, md, inc, azi, 20.0, 90.0)
+    up = stratigraphic_thickness_along_path_m(1100.0, 1110.0, md, inc, azi, 20.0, 270.0)
+    assert down == pytest.approx(6.4279, abs=1e-4) and up == pytest.approx(9.8481, abs=1e-4)
+    # the 3-D position agrees with the TVD route and moves east only
+    p = position_at_md(np.array([1100.0, 1110.0]), md, inc, azi)
+    np.testing.assert_allclose(p[:, 2], tvd_at_md(np.array([1100.0, 1110.0]), md, inc, azi))
+    assert p[1, 1] - p[0, 1] == pytest.approx(5.0, abs=1e-9) and abs(p[1, 0] - p[0, 0]) < 1e-9
+
+
+def test_unmatched_surveys_are_named(tmp_path):
+    from logprep.io.survey import unmatched_survey_warnings, unmatched_surveys
+
+    for name in ("HRM-4.csv", "hrm_5.csv", "HRM-44.csv", "notes.txt"):
+        (tmp_path / name).write_text("md_m,inc_deg,azi_deg\n0,0,0\n100,1,0\n")
+    assert [p.name for p in unmatched_surveys(tmp_path, ["HRM-4", "HRM 5"])] == ["HRM-44.csv"]
+    (msg,) = unmatched_survey_warnings(tmp_path, ["HRM-4", "HRM 5"])
+    assert "HRM-44.csv: survey matches no well" in msg and "\n" not in msg
+
+
+def test_layer_tst_from_tvd_bounds_along_the_survey():
+    # The layer between the TVDs of 1100 and 1110 m MD on the 30 deg slant above is the
+    # hand-worked 6.4279 m thick down-dip; without a survey (vertical well) its TST is
+    # TVT cos 20 whatever the azimuth.
+    from logprep.io.survey import layer_tst_m, md_at_tvd
+
+    md, inc, azi = np.array([0.0, 1000.0, 1050.0, 2000.0]), np.array([0.0, 0.0, 30.0, 30.0]), np.full(4, 90.0)
+    tvd = tvd_at_md(np.array([1100.0, 1110.0]), md, inc, azi)
+    np.testing.assert_allclose(md_at_tvd(tvd, md, inc, azi), [1100.0, 1110.0], atol=1e-5)
+    assert float(layer_tst_m(tvd[0], tvd[1], 20.0, 90.0, (md, inc, azi))) == pytest.approx(6.4279, abs=1e-4)
+    assert float(layer_tst_m(tvd[0], tvd[1], 20.0, 270.0, (md, inc, azi))) == pytest.approx(9.8481, abs=1e-4)
+    tvt = tvd[1] - tvd[0]
+    assert float(layer_tst_m(tvd[0], tvd[1], 20.0, 45.0)) == pytest.approx(tvt * np.cos(np.radians(20.0)))

@@ -128,3 +128,59 @@ def test_window_max_contact_within_the_screened_throws():
         w = two_well_windows(A, B, SHIFT, cap, "footwall")
         row = w[(w.footwall_layer == 2) & (w.hangingwall_layer == 0)].iloc[0]
         assert row.max_contact_m == pytest.approx(expect, abs=1e-12)
+
+
+@pytest.mark.parametrize("top_m", [1000.0, 2000.0, 5000.0])
+@pytest.mark.parametrize("source", ["footwall", "hangingwall", "average"])
+def test_sand_against_its_counterpart_at_realistic_depth(top_m, source):
+    # Worked by hand: shale 100 m (Vsh 0.8), sand 20 m (0.10), shale 30 m (0.9), sand 20 m
+    # (0.05), shale 100 m (0.85); the hanging-wall well is the same column 150 m deeper.
+    # A sand facing its own counterpart has only its own rock in the slipped interval
+    # near zero throw and over its whole contact, so its SGR is its Vsh: 10 % and 5 %,
+    # exactly as the single-well windows give for a sand against itself.
+    d = top_m + np.array([0.0, 100.0, 120.0, 150.0, 170.0, 270.0])
+    fw = Layers(d[:-1], d[1:], [0.8, 0.1, 0.9, 0.05, 0.85], ["shale", "sand", "shale", "sand", "shale"])
+    hw = Layers(fw.top_m + 150.0, fw.base_m + 150.0, fw.vsh, fw.lithology)
+    for other, shift in ((hw, 150.0), (fw, 0.0)):
+        w = two_well_windows(fw, other, shift, 300.0, source)
+        own = w[w.footwall_layer == w.hangingwall_layer].set_index("footwall_layer")
+        assert own.loc[1, "sgr_min_pct"] == pytest.approx(10.0, abs=1e-9)
+        assert own.loc[1, "sgr_max_pct"] == pytest.approx(10.0, abs=1e-9)
+        assert own.loc[3, "sgr_min_pct"] == pytest.approx(5.0, abs=1e-9)
+        assert own.loc[3, "sgr_max_pct"] == pytest.approx(5.0, abs=1e-9)
+    single = sand_windows(fw, 300.0)
+    pair = two_well_windows(fw, fw, 0.0, 300.0, source)
+    for col in ("throw_min_m", "throw_max_m", "sgr_min_pct", "sgr_max_pct"):
+        np.testing.assert_allclose(pair[col], single[col], atol=1e-9)
+
+
+def test_hanging_wall_up_is_refused():
+    from logprep.fault.twowell import check_hanging_wall_down
+
+    check_hanging_wall_down(0.0)  # the same well twice
+    check_hanging_wall_down(17.91)
+    with pytest.raises(PairError, match=r"hanging wall is up: 'Top Foresets' is 17.91 m shallower in B than in A"):
+        check_hanging_wall_down(-17.91, "A", "B", "Top Foresets")
+
+
+def test_reversed_pair_and_stray_survey_are_reported(tmp_path, example_dir, capsys):
+    # Kellan Marker: HRM-3 1988.00 m, HRM-2 1838.00 m (example_logs/tops.csv), so with
+    # HRM-3 named as the footwall the hanging wall is 150 m up: the pair fails with a
+    # message; a survey named for no well screened is named in a warning.
+    from logprep.cli import main
+
+    pairs = tmp_path / "pairs.csv"
+    pairs.write_text("footwall,hangingwall,marker\nHRM-3,HRM-2,Kellan Marker\n")
+    surveys = tmp_path / "surveys"
+    surveys.mkdir()
+    (surveys / "HRM-33.csv").write_text("md_m,inc_deg,azi_deg\n0,0,0\n3000,10,45\n")
+    out = tmp_path / "out"
+    code = main(["screen", str(example_dir / "HRM-2.las"), str(example_dir / "HRM-3.las"),
+                 "--out", str(out), "--tops", str(example_dir / "tops.csv"), "--pairs", str(pairs),
+                 "--survey-dir", str(surveys), "--no-sheet",
+                 "--field-depth-step", "4", "--field-throw-step", "10"])
+    assert code == 1
+    err = capsys.readouterr().err
+    assert "hanging wall is up: 'Kellan Marker' is 150.00 m shallower in HRM-2 than in HRM-3" in err
+    assert "HRM-33.csv: survey matches no well" in err
+    assert pd.read_csv(out / "pairs_summary.csv")["status"].tolist() == ["error"]

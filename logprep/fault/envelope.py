@@ -122,14 +122,13 @@ def leak_point_column_points_m(depth_m, fzp_bar, drho_kgm3):
     return float(np.min(z + column_height_m(fzp_bar, drho_kgm3, 0.0)) - np.min(z))
 
 
-def leak_point_column_m(z_top_m, z_base_m, sgr_top_pct, sgr_base_pct, c, drho_kgm3,
-                        sgr_scale_pct=ENVELOPE_SGR_SCALE_PCT):
-    """Column (m) held by a contact whose SGR varies linearly from its top to its base.
-
-    Exact minimum of ``f(z) = z + FZP(z) / (drho g)`` over ``[z_top, z_base]`` minus
-    ``z_top``, where ``FZP(z) = 10^(SGR(z)/scale - C)``.  ``f`` is convex, so the minimum is
-    at an end or where ``f'(z) = 0`` (only when SGR falls with depth).  Inputs broadcast.
-    """
+def leak_point_m(z_top_m, z_base_m, sgr_top_pct, sgr_base_pct, c, drho_kgm3,
+                 sgr_scale_pct=ENVELOPE_SGR_SCALE_PCT):
+    """``(column_m, leak_depth_m)`` of a contact whose SGR varies linearly from its top to
+    its base: the exact minimum of ``f(z) = z + FZP(z) / (drho g)`` over ``[z_top, z_base]``
+    minus ``z_top``, and the depth where it is met (the leak point), with
+    ``FZP(z) = 10^(SGR(z)/scale - C)``.  ``f`` is convex, so the minimum is at an end or
+    where ``f'(z) = 0`` (only when SGR falls with depth).  Inputs broadcast."""
     z0, z1, s0, s1, c, drho = np.broadcast_arrays(
         *(np.asarray(v, float) for v in (z_top_m, z_base_m, sgr_top_pct, sgr_base_pct, c, drho_kgm3))
     )
@@ -142,14 +141,26 @@ def leak_point_column_m(z_top_m, z_base_m, sgr_top_pct, sgr_base_pct, c, drho_kg
             s = s0 + k * (z - z0)
             return z + a * 10.0 ** (s / sgr_scale_pct - c)
 
-        best = np.minimum(f(z0), f(z1))
+        f0, f1 = f(z0), f(z1)
+        best = np.minimum(f0, f1)
+        where = np.where(f1 < f0, z1, z0)
         # f'(z) = 1 + a ln10 (k/scale) 10^(s/scale - C) = 0
         arg = -sgr_scale_pct / (a * math.log(10.0) * k)
         s_star = sgr_scale_pct * (c + np.log10(np.where(arg > 0, arg, np.nan)))
         z_star = z0 + (s_star - s0) / k
         inside = (k < 0) & np.isfinite(z_star) & (z_star > z0) & (z_star < z1)
-        best = np.where(inside, np.minimum(best, f(np.where(inside, z_star, z0))), best)
-    return np.where(np.isfinite(a), best - z0, np.inf)
+        fs = f(np.where(inside, z_star, z0))
+        better = inside & (fs < best)
+        best = np.where(better, fs, best)
+        where = np.where(better, z_star, where)
+    return np.where(np.isfinite(a), best - z0, np.inf), where
+
+
+def leak_point_column_m(z_top_m, z_base_m, sgr_top_pct, sgr_base_pct, c, drho_kgm3,
+                        sgr_scale_pct=ENVELOPE_SGR_SCALE_PCT):
+    """Column (m) held by a contact whose SGR varies linearly from its top to its base,
+    measured from its top (the first item of :func:`leak_point_m`)."""
+    return leak_point_m(z_top_m, z_base_m, sgr_top_pct, sgr_base_pct, c, drho_kgm3, sgr_scale_pct)[0]
 
 
 # ----------------------------------------------------------------------------- depth and fluids

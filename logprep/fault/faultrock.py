@@ -78,6 +78,46 @@ def sperrevik_permeability_md(clay_frac, max_burial_m, faulting_depth_m, *, a_md
     return a_md * np.exp(-(b * v + c_per_m * zmax + (d_per_m * zf - e) * (1.0 - v) ** exponent))
 
 
+SPERREVIK_FITTED_CLAY = (0.0, 0.6)
+"""Clay fractions of the fault rocks the Sperrevik et al. (2002) relation was fitted on
+(from memory, not verified)."""
+SPERREVIK_FITTED_BURIAL_M = (1500.0, 5000.0)
+"""Maximum burial depths (m) of those samples (North Sea and mid-Norway cores; from memory,
+not verified).  At 353 m the relation gives millions of mD: an extrapolation."""
+MANZOCCHI_FITTED_SGR = (0.0, 0.6)
+"""SGR fractions of the fault-rock data behind the Manzocchi et al. (1999) relation (from
+memory, not verified)."""
+MANZOCCHI_FITTED_DISPLACEMENT_M = (0.001, 1000.0)
+"""Displacements (m) of the thickness-displacement data (from memory, not verified)."""
+
+
+def _outside(name: str, value: float, bounds, unit: str, fmt: str = "g") -> str | None:
+    lo, hi = bounds
+    if lo <= value <= hi:
+        return None
+    return f"{name} {value:{fmt}}{unit} outside the fitted {lo:g}-{hi:g}{unit}"
+
+
+def calibration_note(sgr_frac: float, displacement_m: float, max_burial_m: float,
+                     sperrevik_md: float, manzocchi_md: float, matrix_perm_md: float) -> str:
+    """Why a window's fault-rock permeabilities are extrapolations ('' when they are not):
+    inputs outside the ranges the relations were fitted on (:data:`SPERREVIK_FITTED_CLAY`,
+    :data:`SPERREVIK_FITTED_BURIAL_M`, :data:`MANZOCCHI_FITTED_SGR`,
+    :data:`MANZOCCHI_FITTED_DISPLACEMENT_M`), or a fault rock more permeable than the
+    matrix it was made from (physically implausible for a deformation product; common
+    practice, no source).  Parts are joined by ``"; "``."""
+    parts = [
+        _outside("Sperrevik: clay", sgr_frac, SPERREVIK_FITTED_CLAY, "", ".2f"),
+        _outside("Sperrevik: burial", max_burial_m, SPERREVIK_FITTED_BURIAL_M, " m", ".0f"),
+        _outside("Manzocchi: SGR", sgr_frac, MANZOCCHI_FITTED_SGR, "", ".2f"),
+        _outside("Manzocchi: displacement", displacement_m, MANZOCCHI_FITTED_DISPLACEMENT_M, " m", ".3g"),
+    ]
+    for name, k in (("Sperrevik", sperrevik_md), ("Manzocchi", manzocchi_md)):
+        if k > matrix_perm_md:
+            parts.append(f"{name}: {k:.3g} mD above the matrix {matrix_perm_md:g} mD")
+    return "; ".join(p for p in parts if p)
+
+
 def fault_rock_thickness_m(displacement_m, ratio=THICKNESS_RATIO):
     """Fault-rock thickness (m) = displacement / ``ratio`` (median 66, Manzocchi et al.
     1999, from memory)."""

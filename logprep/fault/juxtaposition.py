@@ -189,21 +189,43 @@ def _sgr_extremes(a, b, c, e, v_f, v_h, c_a, c_c, same, throw_cap):
     return min(values), max(values)
 
 
-def sand_windows(layers: Layers, throw_max_m: float, lithology: str = "sand") -> pd.DataFrame:
+def reservoir_mask(layers: Layers, heterolith_ntg: float | None = None) -> np.ndarray:
+    """Which layers are screened as reservoir: every sand, and a heterolith whose
+    net-to-gross (share of its thickness in sand samples) is at least ``heterolith_ntg``
+    (None: sands only).  Interbedded sand-shale stacks too thin for the minimum bed
+    thickness block as heteroliths yet can hold and pass fluid (common practice, no
+    source); a heterolith without a recorded net-to-gross is not taken."""
+    sand = np.array([x == "sand" for x in layers.lithology], dtype=bool)
+    if heterolith_ntg is None:
+        return sand
+    if not 0 < heterolith_ntg <= 1:
+        raise ValueError(f"heterolith net-to-gross must lie within 0 (exclusive) and 1 (got {heterolith_ntg:g})")
+    het = np.array([x == "heterolith" for x in layers.lithology], dtype=bool)
+    with np.errstate(invalid="ignore"):
+        return sand | (het & (np.asarray(layers.net_to_gross, float) >= heterolith_ntg))
+
+
+def sand_windows(layers: Layers, throw_max_m: float, lithology: str = "sand",
+                 reservoir=None) -> pd.DataFrame:
     """Every footwall-sand / hanging-wall-sand pair that touches for some throw in
     ``(0, throw_max_m]``, including a sand against itself.
 
     Returns a frame with :data:`WINDOW_COLUMNS` plus ``footwall_layer``,
     ``hangingwall_layer`` (indices into ``layers``), ``self_juxtaposed`` and
-    ``max_contact_m`` (the largest contact over the window's throws).  ``throw_max_m`` of
+    ``max_contact_m`` (the largest contact over the window's throws).  ``reservoir``, a
+    boolean per layer (:func:`reservoir_mask`), replaces ``lithology`` as the choice of
+    the layers screened as reservoir.  ``throw_max_m`` of
     a window is capped at the screened maximum throw; ``sgr_min_pct`` / ``sgr_max_pct`` are the exact extremes of SGR over the pair's
     contact area within that throw range.
     """
     if throw_max_m <= 0:
         raise ValueError("throw_max_m must be positive")
     # reservoir layers (default: the sand layers); another name asks for that class alone
-    idx = (np.flatnonzero(layers.reservoir).astype(int) if lithology == "sand"
-           else np.array([i for i, lith in enumerate(layers.lithology) if lith == lithology], dtype=int))
+    if reservoir is not None:
+        idx = np.flatnonzero(np.asarray(reservoir, bool)).astype(int)
+    else:
+        idx = (np.flatnonzero(layers.reservoir).astype(int) if lithology == "sand"
+               else np.array([i for i, lith in enumerate(layers.lithology) if lith == lithology], dtype=int))
     bounds, clay = cumulative_clay(layers)
     # only hanging-wall beds that can touch within the throw cap: top below the footwall
     # bed's base, base within ``throw_max_m`` above its top (the layers are in depth

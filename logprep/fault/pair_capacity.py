@@ -16,6 +16,7 @@ import numpy as np
 import pandas as pd
 
 from logprep.fault import faultrock
+from logprep.fault.closure import with_closure
 from logprep.fault.capacity import (
     CAPACITY_COLUMNS, CapacityParams, _shallowest_contact_m, contact_ends, verdict, window_throws,
 )
@@ -72,12 +73,15 @@ def pair_window_columns_m(fw: Layers, hw: Layers, shift_m: float, w_fw, c: float
 def _pair_window_capacity(fw, hw, shift_m, w, p: CapacityParams, datum_m, co2_rho, slip_source):
     w_fw = footwall_frame(w, shift_m)
     t = window_throws(w_fw, p.n_throws)
-    burial = p.max_burial_m if p.max_burial_m is not None else _shallowest_contact_m(w_fw) - datum_m
+    burial = p.max_burial_m if p.max_burial_m is not None else max(
+        _shallowest_contact_m(w_fw) - datum_m + p.uplift_m, 0.0)
     c = float(envelope_c(burial, p.class_bounds_m, p.class_c))
     drho = [p.rho_brine_kgm3 - r for r in (p.rho_oil_kgm3, p.rho_gas_kgm3, co2_rho)]
-    cols = pair_window_columns_m(fw, hw, shift_m, w_fw, c, drho, t, slip_source,
-                                 p.sgr_scale_pct).min(axis=1)
+    drho[2] /= p.co2_pressure_factor  # CO2-brine capillary pressure (logprep.fault.co2)
     top, base, _, _ = contact_ends(w_fw, t)
+    # columns from the crest of the trapping (footwall) sand, as for one well
+    cols = (pair_window_columns_m(fw, hw, shift_m, w_fw, c, drho, t, slip_source, p.sgr_scale_pct)
+            + (top - float(w_fw["footwall_top_m"]))[None, :]).min(axis=1)
     s_ends = two_well_sgr_pct(fw, hw, shift_m, np.concatenate([top, base]), np.concatenate([t, t]),
                               slip_source)
     tt = np.concatenate([t, t])
@@ -128,4 +132,4 @@ def pair_seal_capacity_table(windows: pd.DataFrame, fw: Layers, hw: Layers, shif
     if length_unit == "ft":
         for fluid in FLUIDS:
             out[f"column_{fluid}_ft"] = out[f"column_{fluid}_m"] / LENGTH_UNITS["ft"]
-    return out
+    return with_closure(out, params.closure_m, unconstrained_column_m=params.unconstrained_column_m)

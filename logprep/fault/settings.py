@@ -7,6 +7,12 @@ from dataclasses import dataclass
 
 from logprep.errors import SettingsError, require_finite_fields
 from logprep.fault.capacity import CapacityParams
+from logprep.fault.clayfraction import (
+    CLAY_CONVERSIONS, DEFAULT_SHALE_CLAY_FRACTION, check_shale_clay_fraction,
+)
+from logprep.fault.closure import UNCONSTRAINED_COLUMN_M, check_closure
+from logprep.fault.co2 import DEFAULTS as CO2_CAPILLARY, co2_pressure_factor
+from logprep.fault.geometry import DEFAULT_FAULT_DIP_DEG, check_fault_dip
 from logprep.fault.envelope import CO2_DENSITY_MODES
 from logprep.fault.sgr import SGR_FIELD_SOURCES
 from logprep.fault.twowell import SLIP_SOURCES
@@ -44,6 +50,20 @@ class FieldSettings:
     pair_slip_source : str
         For well pairs (``--pairs``): the column the slipped interval is taken from, a key
         of :data:`logprep.fault.twowell.SLIP_SOURCES` (``footwall``, ``hangingwall``, ``average``).
+    clay_conversion : str
+        Vsh -> clay fraction step used by SGR, smear and fault rock, a key of
+        :data:`logprep.fault.clayfraction.CLAY_CONVERSIONS`.
+    shale_clay_fraction : float
+        Clay fraction of pure shale (``Vcl = shale_clay_fraction x Vsh``).  Default 1: Vsh
+        is taken as the clay fraction, as the published SGR calibrations did; about 0.6 for
+        an average shale (Shaw & Weaver 1965, from memory).
+    heterolith_reservoir_ntg : float or None
+        Screen heteroliths whose net-to-gross is at least this as reservoir beside the
+        sands (None: sands only).
+    fault_dip_deg : float
+        Fault dip (degrees): displacement along the fault ``throw / sin(dip)`` for the
+        fault rock, and CSP smear distances along the fault.  Default 60, the Andersonian
+        dip of normal faults (Anderson 1951).
     """
 
     throw_max_m: float = 300.0
@@ -51,9 +71,21 @@ class FieldSettings:
     field_depth_step_m: float | None = 0.5
     field_throw_step_m: float = 1.0
     pair_slip_source: str = "footwall"
+    clay_conversion: str = "shale_fraction"
+    shale_clay_fraction: float = DEFAULT_SHALE_CLAY_FRACTION
+    heterolith_reservoir_ntg: float | None = None
+    fault_dip_deg: float = DEFAULT_FAULT_DIP_DEG
 
     def __post_init__(self) -> None:
         require_finite_fields(self)
+        if self.clay_conversion not in CLAY_CONVERSIONS:
+            raise SettingsError(f"unknown clay conversion {self.clay_conversion!r}; use one of "
+                                f"{', '.join(CLAY_CONVERSIONS)}")
+        check_shale_clay_fraction(self.shale_clay_fraction)
+        n = self.heterolith_reservoir_ntg
+        if n is not None and not 0 < n <= 1:
+            raise SettingsError(f"--heterolith-reservoir-ntg must lie within 0 (exclusive) and 1 (got {n:g})")
+        check_fault_dip(self.fault_dip_deg)
         if not self.throw_max_m > 0:
             raise SettingsError(f"--throw-max must be > 0 m (got {self.throw_max_m:g})")
         if self.pair_slip_source not in SLIP_SOURCES:
@@ -99,6 +131,22 @@ class CapacitySettings:
     length_unit : str
         ``m`` or ``ft``: unit of column heights on the sheet (``ft`` also adds
         ``column_*_ft`` columns to the table).
+    water_depth_m, ground_elevation_m : float or None
+        Water depth (offshore) or ground elevation above sea level (onshore), m: burial is
+        measured below the sea floor or ground.  None reads the LAS header (water depth
+        items, ``EGL``) or, without them, takes the surface at sea level (said on the sheet).
+    uplift_m : float
+        Section removed since maximum burial (m), added to the present burial depth.
+    closure_m : float or None
+        Structural closure (m, crest to spill point) that caps every column; None: no cap,
+        columns above ``unconstrained_column_m`` are flagged unconstrained.
+    unconstrained_column_m : float
+        Column (m) above which a column without a closure is flagged.
+    calibration_ift_mn_m, calibration_contact_deg, co2_ift_mn_m, co2_contact_deg : float
+        Interfacial tension (mN/m) and contact angle (degrees) of the hydrocarbon-water
+        system of the envelope's calibration and of CO2-brine: the CO2 capillary pressure
+        is the envelope's times ``(g_co2 cos t_co2)/(g_cal cos t_cal)`` (defaults 30, 0,
+        26, 30: a factor 0.751; see :mod:`logprep.fault.co2`).
     """
 
     sgr_threshold_pct: float = 20.0
@@ -115,9 +163,19 @@ class CapacitySettings:
     envelope_class_bounds_m: tuple[float, ...] = _CAP.class_bounds_m
     envelope_class_c: tuple[float, ...] = _CAP.class_c
     length_unit: str = "m"
+    water_depth_m: float | None = None
+    ground_elevation_m: float | None = None
+    uplift_m: float = 0.0
+    closure_m: float | None = None
+    unconstrained_column_m: float = UNCONSTRAINED_COLUMN_M
+    calibration_ift_mn_m: float = CO2_CAPILLARY["calibration_ift_mn_m"]
+    calibration_contact_deg: float = CO2_CAPILLARY["calibration_contact_deg"]
+    co2_ift_mn_m: float = CO2_CAPILLARY["co2_ift_mn_m"]
+    co2_contact_deg: float = CO2_CAPILLARY["co2_contact_deg"]
 
     def __post_init__(self) -> None:
         require_finite_fields(self)
+        _check_capacity_conventions(self)
         if not 0 <= self.sgr_threshold_pct <= 100:
             raise SettingsError(f"SGR threshold must be within 0-100 % (got {self.sgr_threshold_pct:g})")
         for name in ("envelope_class_bounds_m", "envelope_class_c"):
@@ -152,6 +210,19 @@ class CapacitySettings:
             raise SettingsError(f"max_burial_m must be >= 0 m (got {self.max_burial_m:g})")
 
 
+def _check_capacity_conventions(self) -> None:
+    if self.water_depth_m is not None and self.ground_elevation_m is not None:
+        raise SettingsError("give --water-depth (offshore) or --ground-elevation (onshore), not both")
+    if self.water_depth_m is not None and not self.water_depth_m >= 0:
+        raise SettingsError(f"--water-depth must be >= 0 m (got {self.water_depth_m:g})")
+    if not self.uplift_m >= 0:
+        raise SettingsError(f"--uplift must be >= 0 m (got {self.uplift_m:g})")
+    check_closure(self.closure_m, self.unconstrained_column_m)
+    co2_pressure_factor(self.calibration_ift_mn_m, self.calibration_contact_deg,
+                        self.co2_ift_mn_m, self.co2_contact_deg)
+
+
+
 @dataclass(frozen=True)
 class FaultRockSettings:
     """Fault-rock permeability, thickness and the transmissibility multiplier.
@@ -179,9 +250,12 @@ class FaultRockSettings:
             raise SettingsError(f"faulting_depth_m must be >= 0 m (got {self.faulting_depth_m:g})")
 
 
-def capacity_params(capacity: CapacitySettings, fault_rock: FaultRockSettings) -> CapacityParams:
-    """The :class:`~logprep.fault.capacity.CapacityParams` of the two settings groups."""
+def capacity_params(capacity: CapacitySettings, fault_rock: FaultRockSettings,
+                    field: FieldSettings | None = None) -> CapacityParams:
+    """The :class:`~logprep.fault.capacity.CapacityParams` of the settings groups (the
+    field group gives the fault dip; without it the default dip)."""
     c, r = capacity, fault_rock
+    f = field if field is not None else FieldSettings()
     return CapacityParams(
         rho_brine_kgm3=c.brine_density_kgm3, rho_oil_kgm3=c.oil_density_kgm3,
         rho_gas_kgm3=c.gas_density_kgm3, rho_co2_kgm3=c.co2_density_kgm3,
@@ -192,4 +266,9 @@ def capacity_params(capacity: CapacitySettings, fault_rock: FaultRockSettings) -
         leak_below_pct=c.sgr_leak_pct, seal_from_pct=c.sgr_threshold_pct,
         cell_length_m=r.cell_length_m, matrix_perm_md=r.matrix_perm_md,
         faulting_depth_m=r.faulting_depth_m,
+        water_depth_m=c.water_depth_m, ground_elevation_m=c.ground_elevation_m, uplift_m=c.uplift_m,
+        closure_m=c.closure_m, unconstrained_column_m=c.unconstrained_column_m,
+        co2_pressure_factor=co2_pressure_factor(c.calibration_ift_mn_m, c.calibration_contact_deg,
+                                                c.co2_ift_mn_m, c.co2_contact_deg),
+        fault_dip_deg=f.fault_dip_deg,
     )

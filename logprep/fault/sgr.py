@@ -142,6 +142,11 @@ def throw_axis_m(throw_max_m: float, throw_step_m: float, throw_min_m: float = 0
     return t
 
 
+SNAP_NODE_FRACTION = 1e-6
+"""A throw this close to a whole number of node steps (as a fraction of one step, the same
+tolerance as :func:`breaks_on_nodes`) is taken as on it."""
+
+
 class _Nodes:
     """Uniform nodes ``x_k = top + k g`` over a column with ``pad`` NaN nodes either side."""
 
@@ -157,13 +162,18 @@ class _Nodes:
         self.dE[1:] = np.diff(self.E)
 
     def shift(self, t: float) -> tuple[int, float]:
-        """Throw as a whole number of nodes ``q`` plus a fraction ``f`` in [0, 1)."""
+        """Throw as a whole number of nodes ``q`` plus a fraction ``f`` in [0, 1).
+
+        A throw within :data:`SNAP_NODE_FRACTION` of a node of a whole number of nodes
+        is snapped onto it: the node step is the median of the sampled depths' steps, and
+        its rounding error grows with the number of steps (0.1 m sampling gives a step of
+        0.09999999999990905 m, so 110 m is 1100.000000001 nodes)."""
         s = t / self.g
         q = int(np.floor(s))
         f = s - q
-        if f < 1e-9:
+        if f < SNAP_NODE_FRACTION:
             f = 0.0
-        elif f > 1 - 1e-9:
+        elif f > 1 - SNAP_NODE_FRACTION:
             q, f = q + 1, 0.0
         return q, f
 

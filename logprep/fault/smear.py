@@ -20,7 +20,9 @@ Clay smear potential (Bouvier et al. 1989; Fulljames, Zijerveld & Franssen 1997)
     cut-off at ``|m + t - z|``, where ``m`` is the bed's mid-depth and distances are
     measured vertically along the fault (as throw is).  A distance is never taken below half
     the bed's thickness (the point then faces the bed's own cut-off).  0 where no bed has
-    passed.
+    passed.  The screening run then converts to distances along the dipping fault and true
+    bed thicknesses with one factor, ``sin(fault dip) cos(bed dip)^2``
+    (:func:`logprep.fault.geometry.csp_factor`).
 
 References
 ----------
@@ -218,21 +220,28 @@ def _window_extremes(layers: Layers, w, throw_max_m: float, n_edge: int,
 
 
 def window_smear(layers: Layers, windows: pd.DataFrame, throw_max_m: float,
-                 n_edge: int = 201) -> pd.DataFrame:
+                 n_edge: int = 201, csp_factor: float = 1.0) -> pd.DataFrame:
     """Columns :data:`SMEAR_COLUMNS` for each row of ``windows`` (same index):
     ``ssf_min``/``ssf_max`` (inf where no source bed lies between the two sands, e.g. a
-    sand against itself) and ``csp_min_m``/``csp_max_m`` (metres; 0 there)."""
+    sand against itself) and ``csp_min_m``/``csp_max_m`` (metres; 0 there).  CSP is
+    multiplied by ``csp_factor`` (:func:`logprep.fault.geometry.csp_factor`: distances along
+    a dipping fault and true bed thicknesses instead of vertical ones)."""
     shale = source_beds(layers)  # once per well: the windows only look up their range
     rows = [_window_extremes(layers, w, throw_max_m, n_edge, shale) for w in windows.itertuples()]
-    return pd.DataFrame(rows, columns=SMEAR_COLUMNS, index=windows.index, dtype=float)
+    out = pd.DataFrame(rows, columns=SMEAR_COLUMNS, index=windows.index, dtype=float)
+    out[["csp_min_m", "csp_max_m"]] *= csp_factor
+    return out
 
 
-def with_smear_fields(grid, layers: Layers):
+def with_smear_fields(grid, layers: Layers, csp_factor: float = 1.0):
     """A copy of an :class:`~logprep.fault.sgr.SgrField` carrying ``ssf`` and ``csp_m`` on its
-    axes (float32; NaN where the SGR is NaN, i.e. the slipped interval leaves the log)."""
+    axes (float32; NaN where the SGR is NaN, i.e. the slipped interval leaves the log);
+    CSP times ``csp_factor`` as in :func:`window_smear`."""
     from dataclasses import replace
 
     ssf, csp = smear_fields(layers, grid.depth_m, grid.throw_m)
+    if csp_factor != 1.0:
+        csp *= np.float32(csp_factor)
     off = np.isnan(grid.sgr_pct)
     ssf[off] = np.nan
     csp[off] = np.nan

@@ -30,6 +30,7 @@ import pandas as pd
 from logprep.errors import LogprepError
 from logprep.fault.juxtaposition import (
     _PAIR_CODE, WINDOW_COLUMNS, cumulative_clay, juxtaposition_throw_range, layer_index, max_contact_m,
+    reservoir_mask,
     sgr_from_cumulative_pct,
 )
 from logprep.model import Layers
@@ -60,6 +61,19 @@ def marker_shift_m(fw_tops: pd.DataFrame, hw_tops: pd.DataFrame, marker: str,
         return float(hit["top_m"].iloc[0])
 
     return depth(hw_tops, hw_name) - depth(fw_tops, fw_name)
+
+
+def check_hanging_wall_down(shift_m: float, fw_name: str = "footwall", hw_name: str = "hanging wall",
+                            marker: str | None = None) -> None:
+    """:class:`PairError` when the tie puts the hanging wall up (``shift_m < 0``: the tie
+    horizon shallower in the hanging-wall well).  Two-well screening takes a normal fault,
+    hanging wall down; an up-thrown hanging wall means the wells are the wrong way round
+    or the fault is reverse, and its windows and SGR would be meaningless."""
+    if shift_m < 0:
+        what = f"{marker!r} is {-shift_m:.2f} m shallower" if marker else f"shift_m {shift_m:g} m puts the tie horizon higher"
+        raise PairError(f"the hanging wall is up: {what} in {hw_name} than in {fw_name}; two-well "
+                        "screening takes a normal fault with the hanging wall down: swap footwall and "
+                        "hangingwall if the wells are the wrong way round")
 
 
 def two_well_sgr_pct(fw: Layers, hw: Layers, shift_m: float, depth_m, throw_m,
@@ -105,9 +119,26 @@ def two_well_field(fw: Layers, hw: Layers, shift_m: float, *, throw_max_m: float
                     juxtaposition=jux, source=f"two wells, slipped interval from {slip_source}")
 
 
+def _corner_tolerance_m(*depths_m) -> float:
+    """Tolerance (m) for a corner to count as on the contact area: 1e-9 of the deepest
+    depth (at least 1e-9 m), far below any bed thickness and any throw evaluated."""
+    return 1e-9 * max(1.0, *(abs(float(d)) for d in depths_m))
+
+
+SMALLEST_THROW_FRACTION = 1e-6
+"""The smallest throw at which window corners are evaluated, as a fraction of the deepest
+depth (2.2 mm at 2200 m): SGR is a limit at zero throw, and this is 1000 times the corner
+tolerance of :func:`_corner_tolerance_m`, so a point just outside a sand is never taken
+as on its contact."""
+
+
 def _corner_points(a, b, c, e, shift, t_lo, t_hi, z_breaks, y_breaks):
     """Corners of the cells of the contact area ``a <= z <= b, c <= y <= e,
-    t_lo <= z - y + shift <= t_hi`` cut by lines ``z = z_breaks`` and ``y = y_breaks``."""
+    t_lo <= z - y + shift <= t_hi`` cut by lines ``z = z_breaks`` and ``y = y_breaks``.
+
+    ``t_lo`` must exceed the tolerance (:func:`_corner_tolerance_m`) many times over:
+    otherwise a corner on ``z = b`` at throw ``t_lo`` lies within tolerance of the sand
+    but its slipped interval lies in the bed below."""
     zs = np.unique(np.concatenate(([a, b], [v for v in z_breaks if a < v < b])))
     ys = np.unique(np.concatenate(([c, e], [v for v in y_breaks if c < v < e])))
     pts = [(z, y) for z in zs for y in ys]
@@ -116,7 +147,7 @@ def _corner_points(a, b, c, e, shift, t_lo, t_hi, z_breaks, y_breaks):
     for y in ys:
         pts += [(y - shift + t_lo, y), (y - shift + t_hi, y)]
     p = np.array(pts, float)
-    tol = 1e-9 * max(1.0, abs(b), abs(e))
+    tol = _corner_tolerance_m(a, b, c, e)
     t = p[:, 0] - p[:, 1] + shift
     ok = ((p[:, 0] >= a - tol) & (p[:, 0] <= b + tol) & (p[:, 1] >= c - tol) & (p[:, 1] <= e + tol)
           & (t >= t_lo - tol) & (t <= t_hi + tol))
@@ -124,15 +155,16 @@ def _corner_points(a, b, c, e, shift, t_lo, t_hi, z_breaks, y_breaks):
 
 
 def two_well_windows(fw: Layers, hw: Layers, shift_m: float, throw_max_m: float,
-                     slip_source: str = "footwall") -> pd.DataFrame:
+                     slip_source: str = "footwall", heterolith_ntg: float | None = None) -> pd.DataFrame:
     """Every footwall-sand / hanging-wall-sand pair that touches for a throw in
     ``(0, throw_max_m]``, with the exact SGR extremes over its contact area.
 
     Hanging-wall depths are the hanging-wall well's own depths; ``throw_*`` are marker
     offsets.  Columns :data:`PAIR_WINDOW_COLUMNS`.
     """
-    fsand = [int(i) for i in np.flatnonzero(fw.reservoir)]  # reservoir layers (default: sand)
-    hsand = [int(i) for i in np.flatnonzero(hw.reservoir)]
+    # reservoir layers (default: sand), with heteroliths above a net-to-gross when asked
+    fsand = [int(i) for i in np.flatnonzero(fw.reservoir | reservoir_mask(fw, heterolith_ntg))]
+    hsand = [int(i) for i in np.flatnonzero(hw.reservoir | reservoir_mask(hw, heterolith_ntg))]
     fb = np.concatenate(([fw.top_m[0]], fw.base_m))
     hb = np.concatenate(([hw.top_m[0]], hw.base_m))
     rows = []
@@ -146,10 +178,12 @@ def two_well_windows(fw: Layers, hw: Layers, shift_m: float, throw_max_m: float,
                 continue
             # footwall source: the interval's lower end z - t = y - shift crosses footwall
             # boundaries; hanging-wall source: its upper end z + shift crosses hanging-wall ones
-            pts = _corner_points(a, b, c, e, shift_m, max(lo, 1e-6), cap,
+            t_small = SMALLEST_THROW_FRACTION * max(1.0, abs(a), abs(b), abs(c), abs(e))
+            pts = _corner_points(a, b, c, e, shift_m, max(lo, min(t_small, 0.5 * cap)), cap,
                                  z_breaks=hb - shift_m, y_breaks=fb + shift_m)
             s = two_well_sgr_pct(fw, hw, shift_m, pts[:, 0], pts[:, 0] - pts[:, 1] + shift_m, slip_source)
-            s = s[np.isfinite(s)]
+            # SGR of Vsh in [0, 1] lies in [0, 100]; clip the rounding noise (no "-0.0")
+            s = np.clip(s[np.isfinite(s)], 0.0, 100.0)
             rows.append({
                 "footwall_top_m": a, "footwall_base_m": b,
                 "hangingwall_top_m": c, "hangingwall_base_m": e,

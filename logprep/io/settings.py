@@ -28,6 +28,10 @@ class InputSettings:
         minimum curvature; a well without one is taken as vertical.
     bed_dip_deg : float
         Bed dip (degrees) for the true stratigraphic thickness ``tst_m`` in ``layers.csv``.
+    bed_dip_azimuth_deg : float
+        Direction of that dip (degrees from north).  It matters only for a deviated well:
+        drilling down-dip thins the stratigraphic thickness per metre drilled, up-dip
+        thickens it (see :func:`logprep.io.survey.straight_hole_tst_m`).
     """
 
     gr_curve: str | None = None
@@ -35,6 +39,7 @@ class InputSettings:
     tops_file: str | None = None
     survey_dir: str | None = None
     bed_dip_deg: float = 0.0
+    bed_dip_azimuth_deg: float = 0.0
 
     def __post_init__(self) -> None:
         require_finite_fields(self)
@@ -42,3 +47,5 @@ class InputSettings:
             raise SettingsError(f"unknown depth unit {self.depth_unit!r}; use m or ft")
         if not 0 <= self.bed_dip_deg < 90:
             raise SettingsError(f"--bed-dip must lie within 0 and 90 degrees (got {self.bed_dip_deg:g})")
+        if not 0 <= self.bed_dip_azimuth_deg <= 360:
+            raise SettingsError(f"--bed-dip-azimuth must lie within 0 and 360 degrees (got {self.bed_dip_azimuth_deg:g})")

@@ -49,19 +49,23 @@ def check_cutoffs(sand_cutoff: float, shale_cutoff: float) -> None:
         )
 
 
-def fill_gaps(depth_m, vsh) -> tuple[np.ndarray, np.ndarray]:
+def fill_gaps(depth_m, vsh, extend_ends: bool = False) -> tuple[np.ndarray, np.ndarray]:
     """Interpolate missing Vsh linearly in depth between measured samples.
 
     Returns ``(vsh_filled, was_filled)``.  Leading and trailing gaps are not filled (NaN
-    stays); callers trim them.
+    stays; callers trim them) unless ``extend_ends``: then they take the nearest measured
+    value, so a spike replaced on the first or last sample of a log does not leave the
+    column without a Vsh there (common practice, no source).
     """
     d = np.asarray(depth_m, dtype=float)
     v = np.asarray(vsh, dtype=float)
     ok = np.isfinite(v)
     filled = v.copy()
-    if ok.sum() >= 2:
+    if ok.sum() >= 2 or (extend_ends and ok.any()):
         inside = (~ok) & (d > d[ok][0]) & (d < d[ok][-1])
-        filled[inside] = np.interp(d[inside], d[ok], v[ok])
+        if extend_ends:
+            inside = ~ok
+        filled[inside] = np.interp(d[inside], d[ok], v[ok])  # np.interp holds the end values
         return filled, inside
     return filled, np.zeros(v.shape, dtype=bool)
 

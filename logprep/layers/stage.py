@@ -46,7 +46,7 @@ def blocked_column(depth_m, vsh_raw, settings: LayerSettings = LayerSettings(), 
         layer's ``flagged_fraction``.
     """
     depth = np.asarray(depth_m, dtype=float)
-    vsh, filled = fill_gaps(depth, vsh_raw)
+    vsh, filled = fill_gaps(depth, vsh_raw, extend_ends=True)
     ends = ~np.isfinite(vsh)
     if ends.any() and (~ends).any():  # leading/trailing replaced samples: nearest value
         ok = np.flatnonzero(~ends)

@@ -18,7 +18,7 @@ from matplotlib.backends.backend_pdf import PdfPages
 
 from logprep.errors import OutputError
 from logprep.fault.juxtaposition import WINDOW_COLUMNS
-from logprep.io.survey import true_stratigraphic_thickness_m
+from logprep.io.survey import layer_tst_m
 from logprep.report.lasexport import las_bytes
 from logprep.clay.qc import any_flag, layer_fraction, qc_table
 from logprep.io.safetext import safe_cell
@@ -203,7 +203,9 @@ def well_tables(result) -> dict[str, pd.DataFrame]:
     windows = with_window_numbers(result.windows)
     extra = [c for c in windows.columns if c not in WINDOW_COLUMNS]
     layers = result.layers.to_frame()
-    layers["tst_m"] = true_stratigraphic_thickness_m(layers["thickness_m"], result.settings.input.bed_dip_deg)
+    inp = result.settings.input
+    layers["tst_m"] = layer_tst_m(layers["top_m"], layers["base_m"], inp.bed_dip_deg,
+                                  inp.bed_dip_azimuth_deg, getattr(result, "survey", None))
     if result.qc_flags:
         layers["qc_flagged_fraction"] = layer_fraction(
             result.depth_m, any_flag(result.qc_flags), result.layers.top_m, result.layers.base_m)

@@ -16,7 +16,7 @@ from pathlib import Path
 
 from logprep import __version__
 from logprep.errors import LogprepError
-from logprep.io.survey import check_survey_dir
+from logprep.io.survey import check_survey_dir, unmatched_survey_warnings
 from logprep.io.tops import read_tops
 from logprep.report.writers import prepare_out_dir, well_folder_name, write_summary
 from logprep.run.config import SETTINGS_FILE_NAME, write_settings
@@ -56,6 +56,8 @@ class BatchReport:
     outcomes: dict[str, WellOutcome] = field(default_factory=dict)
     scan_skipped: list[tuple[str, str]] = field(default_factory=list)
     scan_line: str | None = None
+    warnings: list[str] = field(default_factory=list)
+    """One-line warnings about shared inputs (a survey that matches no well)."""
 
     @property
     def failures(self) -> list[dict]:
@@ -226,6 +228,9 @@ def screen_paths(
             progress.close()
             write_summary(rows, out)
             manifest.compact()
+    if settings.input.survey_dir:
+        names = [r["well"] for r in rows] + [Path(r["source"]).stem for r in rows]
+        report.warnings = unmatched_survey_warnings(settings.input.survey_dir, names)
     return report
 
 

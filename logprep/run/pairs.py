@@ -25,7 +25,9 @@ from logprep.report.writers import (
     csv_bytes, folder_name, pdf_bytes, plain_text, png_bytes, with_window_numbers, write_bytes_atomic,
 )
 from logprep.io.tops import well_key
-from logprep.fault.twowell import PairError, marker_shift_m, two_well_field, two_well_windows
+from logprep.fault.twowell import (
+    PairError, check_hanging_wall_down, marker_shift_m, two_well_field, two_well_windows,
+)
 
 PAIRS_SUMMARY_COLUMNS = ["footwall", "hangingwall", "marker", "shift_m", "slip_source", "status",
                          "message", "sand_sand_windows", "min_window_sgr_pct", "folder"]
@@ -105,6 +107,7 @@ def pair_task(settings, tops, options, pair: dict, fw_file: tuple[str, str],
                                    pair["hangingwall"])
         else:
             shift = parse_number(pair["shift_m"])
+        check_hanging_wall_down(shift, pair["footwall"], pair["hangingwall"], pair["marker"] or None)
         windows = pair_windows(fw, hw, shift, settings)
         step = settings.field.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
         grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=settings.field.throw_max_m,

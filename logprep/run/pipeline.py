@@ -20,11 +20,8 @@ import pandas as pd
 from logprep.clay.endpoints import PICK_COLUMNS
 from logprep.clay.qc import ND_ONLY, any_flag
 from logprep.clay.stage import clay_volume
-from logprep.fault.capacity import seal_capacity_step
-from logprep.fault.settings import capacity_params
-from logprep.fault.sgr import SgrField, sgr_field
-from logprep.fault.smear import window_smear, with_smear_fields
-from logprep.fault.juxtaposition import sand_windows
+from logprep.fault.sgr import SgrField
+from logprep.fault.stage import fault_stage
 from logprep.io.las import read_well
 from logprep.io.survey import deviated_well
 from logprep.io.tops import TOPS_COLUMNS, well_tops
@@ -47,6 +44,8 @@ class WellScreening:
     holds the boolean flags of :data:`logprep.clay.qc.QC_FLAGS`; ``picks`` the endpoint picks
     per zone (``picks.csv``); ``gr_clean_line``/``gr_shale_line`` the lines per sample.
     ``gr_clean_api``/``gr_shale_api`` are the whole-well lines, for reference.
+    ``survey`` is the deviation survey ``(md_m, inc_deg, azi_deg)`` the depths were put on
+    TVD with (None for a well taken as vertical).
     """
 
     well: WellLog
@@ -72,6 +71,7 @@ class WellScreening:
     rock: np.ndarray | None = None
     unusable: dict | None = None
     faults: tuple = ()
+    survey: tuple | None = None
 
     @property
     def warnings(self) -> tuple[str, ...]:
@@ -98,21 +98,12 @@ def screen_well(
     ``tops`` is a tops table for any number of wells (see :mod:`logprep.io.tops`); when it
     is None and ``settings.input.tops_file`` is set, that file is read.
     """
-    fld = settings.field
-    well, picks, depth_ref, cv, col, notes = _column_stages(well, settings, tops)
+    fld, inp = settings.field, settings.input
+    well, picks, depth_ref, cv, col, notes, survey = _column_stages(well, settings, tops)
     depth, vsh, filled, layers = cv.depth_m, col.vsh, col.filled, col.layers
-    windows = sand_windows(layers, fld.throw_max_m)
-    sgr = sgr_field(
-        layers, depth, vsh, throw_max_m=fld.throw_max_m,
-        throw_step_m=fld.field_throw_step_m, depth_step_m=fld.field_depth_step_m,
-        source=fld.sgr_field_source,
-    )
-    sgr = with_smear_fields(sgr, layers)
-    windows, note = seal_capacity_step(well, layers, windows,
-                                       capacity_params(settings.capacity, settings.fault_rock),
-                                       settings.capacity.length_unit)
-    notes.append(note)
-    windows = windows.join(window_smear(layers, windows, fld.throw_max_m))
+    windows, sgr, fault_notes = fault_stage(well, layers, depth, vsh, fld, settings.capacity,
+                                            settings.fault_rock, inp.bed_dip_deg)
+    notes.extend(fault_notes)
     windows = windows.join(window_footing(windows, layers.filled_fraction, layers.flagged_fraction,
                                           layers.thickness_m, thin_m=settings.layers.thin_bed_m))
     return WellScreening(
@@ -121,7 +112,7 @@ def screen_well(
         windows=windows, tops=picks, notes=tuple(notes), vsh_gr=cv.vsh_gr, vsh_nd=cv.vsh_nd,
         qc_flags=cv.qc_flags, picks=cv.picks, gr_clean_line=cv.gr_clean_line,
         gr_shale_line=cv.gr_shale_line, grid=sgr,
-        depth_reference=depth_ref, rock=cv.rock, unusable=cv.unusable,
+        depth_reference=depth_ref, rock=cv.rock, unusable=cv.unusable, survey=survey,
     )
 
 
@@ -129,7 +120,7 @@ def _column_stages(well: WellLog, settings: ScreenSettings, tops):
     """Tops and TVD, clay volume and the blocked column: every stage up to ``layers.csv``."""
     inp, lay = settings.input, settings.layers
     picks = well_tops(well, inp.tops_file, tops)
-    well, picks, depth_ref, survey_note = deviated_well(well, inp.survey_dir, picks)
+    well, picks, depth_ref, survey_note, survey = deviated_well(well, inp.survey_dir, picks, with_survey=True)
     cv = clay_volume(well, settings.clay, picks)
     notes = [f"warning: {w}" for w in well.warnings] + list(cv.notes) \
         + ([survey_note] if survey_note else [])
@@ -141,7 +132,7 @@ def _column_stages(well: WellLog, settings: ScreenSettings, tops):
         notes.append("no formation tops for this well; layers not tied to tops")
     col = blocked_column(cv.depth_m, cv.vsh, lay, forced_m=forced, rock=cv.rock,
                          unusable=cv.unusable, flagged=qc_flagged(cv.qc_flags))
-    return well, picks, depth_ref, cv, col, notes + list(col.notes)
+    return well, picks, depth_ref, cv, col, notes + list(col.notes), survey
 
 
 def qc_flagged(flags: dict) -> np.ndarray | None:
