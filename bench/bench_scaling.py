@@ -40,13 +40,13 @@ from logprep.run.settings import ScreenSettings
 STEP_M = 0.1524  # 0.5 ft, the common logging step
 
 
-def synthetic_well(n: int, seed: int = 11) -> WellLog:
+def synthetic_well(n: int, random_state: int = 11) -> WellLog:
     """A vertical well of ``n`` samples at 0.1524 m from 1000 m: a random succession of
     shale, silt, heterolith and sand beds (lognormal thickness, median 3 m), GR from the
     shale fraction through a 0.6 m Gaussian tool response plus noise, a GR baseline step
     every 900 m, a smaller bit size below 40 % of the interval, neutron and density from
     the same profile."""
-    rng = np.random.default_rng(seed)
+    rng = np.random.default_rng(random_state)
     depth = 1000.0 + STEP_M * np.arange(n)
     length = n * STEP_M
     beds = []

@@ -23,9 +23,9 @@ from logprep.run.pipeline import ScreenSettings
 from timing import best_time_s
 
 
-def big_well(path: Path, n: int = 20_000, step_m: float = 0.1524, seed: int = 7) -> Path:
+def big_well(path: Path, n: int = 20_000, step_m: float = 0.1524, random_state: int = 7) -> Path:
     """A 20,000-sample LAS file of invented sand-shale cycles (3-20 m beds)."""
-    rng = np.random.default_rng(seed)
+    rng = np.random.default_rng(random_state)
     depth = 1500.0 + step_m * np.arange(n)
     gr = np.empty(n)
     i = 0

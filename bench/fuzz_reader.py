@@ -7,7 +7,7 @@ read with ``read_well`` and, when that succeeds, screened with ``screen_well`` (
 Any exception outside logprep's error family is a finding: it is printed with its
 traceback and the mutant is saved under --keep.
 
-Run:  python bench/fuzz_reader.py [--cases N] [--seed S] [--keep DIR] [--no-screen]
+Run:  python bench/fuzz_reader.py [--cases N] [--random-state S] [--keep DIR] [--no-screen]
 """
 
 from __future__ import annotations
@@ -66,7 +66,7 @@ def mutate(data: bytes, rng: random.Random) -> bytes:
 def main() -> int:
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--cases", type=int, default=2000)
-    ap.add_argument("--seed", type=int, default=1)
+    ap.add_argument("--random-state", type=int, default=1)
     ap.add_argument("--keep", default="fuzz-findings")
     ap.add_argument("--no-screen", action="store_true", help="read only, do not screen")
     args = ap.parse_args()
@@ -75,7 +75,7 @@ def main() -> int:
     from logprep.io.las import read_well
     from logprep.run.pipeline import screen_well
 
-    rng = random.Random(args.seed)
+    rng = random.Random(args.random_state)
     base = sources()
     outcomes: collections.Counter = collections.Counter()
     findings = []
@@ -101,7 +101,7 @@ def main() -> int:
                 findings.append((case, traceback.format_exc()))
             dt = time.perf_counter() - t0
             slowest = max(slowest, (dt, f"case {case}"))
-    print(f"{args.cases} mutants (seed {args.seed}): " + ", ".join(f"{k} {v}" for k, v in sorted(outcomes.items())))
+    print(f"{args.cases} mutants (random_state {args.random_state}): " + ", ".join(f"{k} {v}" for k, v in sorted(outcomes.items())))
     print(f"slowest: {slowest[0]:.2f} s ({slowest[1]})")
     for case, tb in findings[:10]:
         print(f"--- finding, case {case} (kept in {args.keep}):\n{tb}")

@@ -4,7 +4,7 @@ bench wells HRM-B01...; nothing here comes from real data).
 Each well is a random sand-shale succession (beds 0.5-25 m thick, Vsh per bed from a
 beta distribution) turned into GR = 25 + 95 Vsh API, smoothed over about 0.6 m (tool
 response) and given 3 API of noise, sampled every 0.1524 m, with a density curve.  A fixed
-seed makes the folder the same on every run.  Of the ``n`` wells, ``n_big`` have 20,000
+random_state makes the folder the same on every run.  Of the ``n`` wells, ``n_big`` have 20,000
 samples, one is logged in feet and two have problems a batch must report and go past: one
 has no gamma-ray curve, one is not a LAS file at all.
 
@@ -49,11 +49,11 @@ def las_text(name: str, depth, curves: dict[str, tuple[str, np.ndarray]], unit: 
     return head + "~A\n" + body + "\n"
 
 
-def make_wells(out_dir: str | Path, n: int = 60, n_big: int = 10, seed: int = 20_261_202) -> list[Path]:
+def make_wells(out_dir: str | Path, n: int = 60, n_big: int = 10, random_state: int = 20_261_202) -> list[Path]:
     """Write the bench wells into ``out_dir``; returns their paths."""
     out = Path(out_dir)
     out.mkdir(parents=True, exist_ok=True)
-    rng = np.random.default_rng(seed)
+    rng = np.random.default_rng(random_state)
     paths = []
     for k in range(n):
         name = f"HRM-B{k + 1:02d}"

@@ -72,10 +72,10 @@ def optimal_partition_cost(x, breaks, penalty):
 
 
 @settings(max_examples=60, deadline=None)
-@given(seed=st.integers(0, 10_000), n=st.integers(2, 300), min_size=st.integers(1, 40),
+@given(random_state=st.integers(0, 10_000), n=st.integers(2, 300), min_size=st.integers(1, 40),
        penalty=st.sampled_from([0.0, 0.3, 2.0, 25.0]), kind=st.sampled_from(["noise", "steps", "ties"]))
-def test_changepoint_blocks_match_one_end_at_a_time(seed, n, min_size, penalty, kind):
-    rng = np.random.default_rng(seed)
+def test_changepoint_blocks_match_one_end_at_a_time(random_state, n, min_size, penalty, kind):
+    rng = np.random.default_rng(random_state)
     if kind == "noise":
         x = rng.normal(0, 1, n)
     elif kind == "steps":
@@ -138,9 +138,9 @@ def every_pair_windows(layers: Layers, throw_max_m: float) -> pd.DataFrame:
     return pd.DataFrame(rows, columns=cols).astype(dtypes)
 
 
-@pytest.mark.parametrize("seed,throw_max_m", [(1, 30.0), (2, 100.0), (3, 5.0), (4, 1e4)])
-def test_sand_windows_match_every_pair(seed, throw_max_m):
-    layers = random_layers(np.random.default_rng(seed))
+@pytest.mark.parametrize("random_state,throw_max_m", [(1, 30.0), (2, 100.0), (3, 5.0), (4, 1e4)])
+def test_sand_windows_match_every_pair(random_state, throw_max_m):
+    layers = random_layers(np.random.default_rng(random_state))
     got = sand_windows(layers, throw_max_m)
     ref = every_pair_windows(layers, throw_max_m)
     assert len(got) > 0

@@ -197,7 +197,7 @@ def test_values_no_instrument_reads_are_bounded(tmp_path):
 
 
 def test_short_fuzz_of_the_reader_and_science():
-    # 150 seeded mutations of the corpus (bench/fuzz_reader.py runs thousands): only
+    # 150 reproducible mutations of the corpus (bench/fuzz_reader.py runs thousands): only
     # logprep's own errors may come out
     sys.path.insert(0, str(Path(__file__).resolve().parents[1] / "bench"))
     import fuzz_reader

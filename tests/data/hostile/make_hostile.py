@@ -22,9 +22,9 @@ import numpy as np
 HERE = Path(__file__).parent
 
 
-def column(n: int = 80, step: float = 0.5, top: float = 1000.0, seed: int = 1):
+def column(n: int = 80, step: float = 0.5, top: float = 1000.0, random_state: int = 1):
     """Depth (m) and a noisy sand-shale-sand GR (API): 40 API sands, 110 API shale."""
-    rng = np.random.default_rng(seed)
+    rng = np.random.default_rng(random_state)
     z = top + step * np.arange(n)
     shale = (z >= top + 0.3 * step * n) & (z < top + 0.6 * step * n)
     gr = np.where(shale, 110.0, 40.0) + rng.normal(0, 4, n)
@@ -99,7 +99,7 @@ def _wrapped_flag_no() -> str:
 
 
 def _clipped() -> str:
-    z, gr = column(200, seed=3)
+    z, gr = column(200, random_state=3)
     gr = np.minimum(gr + 40, 150.0)  # the shale reads flat at 150 API
     return las2(list(zip(z, gr)))
 
