@@ -113,8 +113,7 @@ def final_line(report, out) -> str:
     bugs = (f" ({internal} internal error(s): tracebacks in "
             f"{show_path(out)}/{INTERNAL_LOG_NAME}, please report)") if internal else ""
     skipped = f"; {report.scan_line}" if report.scan_line else ""
-    unchanged = getattr(report, "skipped", 0)
-    bugs += (f" ({unchanged} unchanged since the last run, skipped; --force redoes them)"
-             if isinstance(unchanged, int) and unchanged else "")
-    return (f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed{bugs}; "
+    unchanged = (f" ({report.skipped} unchanged since the last run, skipped; --force redoes them)"
+                 if report.skipped else "")
+    return (f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed{bugs}{unchanged}; "
             f"results in {show_path(out)}, summary {show_path(report.summary_path)}{skipped}")

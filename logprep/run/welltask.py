@@ -127,5 +127,5 @@ def screen_well_task(settings, tops, options: OutputOptions, fault_work: tuple, 
     cross = result.windows[~result.windows["self_juxtaposed"]]
     row.update(well=result.well.name, layers=len(result.layers), sand_sand_windows=len(cross),
                min_window_sgr_pct=round(result.min_window_sgr_pct, 3), folder=folder,
-               warnings="; ".join(getattr(result, "warnings", ())))
+               warnings="; ".join(result.warnings))
     return WellOutcome(row, dict(sorted(files.items())), t, peak_rss_mb(), worker)
