@@ -19,9 +19,12 @@ The file holds:
     The smear indicators on the same axes; they double the file and are drawn on the
     sheet anyway, so they are written only when asked for (``--field-smear``).
 
-Every array is deflate-compressed (the zip format of ``numpy.savez_compressed``,
-readable by ``numpy.load``); the zip members carry a fixed date, so the same field
-gives the same bytes.
+Every array is a bzip2-compressed member of a zip file (compression method 12, which
+``numpy.load``, Python's ``zipfile``, 7-Zip and Info-ZIP unzip read; a reader limited to
+deflate can unpack the members with any bzip2 tool): bzip2's block sorting packs the smooth
+0.1 %-step SGR grid of a 20,000-sample well into about 530 kB against 940 kB with deflate,
+for about 0.4 s more per such well.  The 2-D grids are stored row by row (C order).  The
+zip members carry a fixed date, so the same field gives the same bytes.
 """
 
 from __future__ import annotations
@@ -67,17 +70,18 @@ def decode_sgr_pct(stored, step_pct: float = SGR_STEP_PCT, null: int = SGR_NULL)
     return out
 
 
-def npz_bytes(arrays: dict[str, np.ndarray], compresslevel: int = 6) -> bytes:
-    """A ``.npz`` archive (deflate) of ``arrays`` whose bytes depend only on the arrays:
-    members in the given order, each with a fixed date."""
+def npz_bytes(arrays: dict[str, np.ndarray], compresslevel: int = 9,
+              compression: int = zipfile.ZIP_BZIP2) -> bytes:
+    """A ``.npz`` archive (bzip2 members, see the module docstring) of ``arrays`` whose
+    bytes depend only on the arrays: members in the given order, each in C order and
+    with a fixed date."""
     buf = io.BytesIO()
-    with zipfile.ZipFile(buf, "w", compression=zipfile.ZIP_DEFLATED,
-                         compresslevel=compresslevel) as zf:
+    with zipfile.ZipFile(buf, "w", compression=compression, compresslevel=compresslevel) as zf:
         for name, value in arrays.items():
             member = io.BytesIO()
-            np.lib.format.write_array(member, np.asanyarray(value), allow_pickle=False)
+            np.lib.format.write_array(member, np.asarray(value, order="C"), allow_pickle=False)
             info = zipfile.ZipInfo(f"{name}.npy", date_time=_FIXED_DATE)
-            info.compress_type = zipfile.ZIP_DEFLATED
+            info.compress_type = compression
             info.external_attr = 0o644 << 16
             zf.writestr(info, member.getvalue(), compresslevel=compresslevel)
     return buf.getvalue()

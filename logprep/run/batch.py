@@ -196,6 +196,8 @@ def screen_paths(
         # file as given; the survey folder likewise
         worker_settings = settings.updated(survey_dir=readable_path(settings.input.survey_dir)) \
             if settings.input.survey_dir else settings
+        if backend.uses_dask or backend.jobs > 1:
+            todo = biggest_first(todo, files)
         tasks = [(given[i], readable_path(files[i]), folders[i]) for i in todo]
         last = time.monotonic()
         try:
@@ -232,6 +234,18 @@ def screen_paths(
         names = [r["well"] for r in rows] + [Path(r["source"]).stem for r in rows]
         report.warnings = unmatched_survey_warnings(settings.input.survey_dir, names)
     return report
+
+
+def biggest_first(todo: list[int], files: list[Path]) -> list[int]:
+    """``todo`` with the largest input files first (ties in input order): with several
+    workers the long wells then start early instead of leaving one worker busy at the end
+    (longest-first scheduling, common practice, no source)."""
+    def size(i: int) -> int:
+        try:
+            return files[i].stat().st_size
+        except OSError:
+            return 0
+    return sorted(todo, key=lambda i: (-size(i), i))
 
 
 def _input_sha256(path: Path) -> str:

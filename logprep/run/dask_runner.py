@@ -10,6 +10,7 @@ sees) and return the outputs as bytes; the client writes them (see
 from __future__ import annotations
 
 import logging
+import multiprocessing
 from collections.abc import Callable, Iterator, Sequence
 from contextlib import contextmanager
 
@@ -19,6 +20,27 @@ INSTALL_HINT = "install the Dask extra: pip install 'logprep[dask]'"
 
 CONNECT_TIMEOUT_S = 15.0
 """How long to try to reach a ``--scheduler`` before giving up."""
+
+
+WORKER_PRELOAD = ("distributed", "numpy", "pandas", "scipy", "matplotlib", "lasio",
+                  "logprep.run.welltask", "logprep.run.pipeline", "logprep.io.las",
+                  "logprep.report.writers", "logprep.report.sheet", "logprep.run.contain",
+                  "logprep.run.pairs", "logprep.run.fault_batch")
+"""Modules the local cluster's fork server imports once, so that its workers start with them
+(instead of every worker importing them again, by spawn, before its first task)."""
+
+LOCAL_WORKER_CONFIG = {
+    # workers forked from one server that has imported the modules above: a start-up of
+    # about 1 s instead of several
+    "distributed.worker.multiprocessing-method": "forkserver",
+    # the nanny's default MALLOC_TRIM_THRESHOLD_ fixes the allocator's thresholds, so every
+    # large numpy temporary is mapped and unmapped again: 20x the page faults and about
+    # 20 % more CPU per well (bench/bench_batch_scale.py); the allocator's own adaptive
+    # thresholds are kept instead
+    "distributed.nanny.pre-spawn-environ.MALLOC_TRIM_THRESHOLD_": None,
+}
+"""Dask settings of the ``--dask-local`` cluster (a ``--scheduler`` cluster keeps its own;
+README says how a team sets the same)."""
 
 
 def _distributed():
@@ -33,7 +55,7 @@ def _distributed():
 def dask_client(scheduler: str | None = None, local_workers: int | None = None):
     """A :class:`distributed.Client` connected to ``scheduler``, or to a local cluster of
     ``local_workers`` single-threaded worker processes on the loopback interface (closed
-    again on exit)."""
+    again on exit; see :data:`LOCAL_WORKER_CONFIG`)."""
     distributed = _distributed()
     if scheduler:
         try:
@@ -46,10 +68,16 @@ def dask_client(scheduler: str | None = None, local_workers: int | None = None):
         finally:
             client.close()
         return
-    cluster = distributed.LocalCluster(
-        n_workers=local_workers, threads_per_worker=1, processes=True, host="127.0.0.1",
-        dashboard_address=None, silence_logs=logging.ERROR,
-    )
+    import dask
+    from distributed.utils import get_mp_context
+
+    with dask.config.set(LOCAL_WORKER_CONFIG):
+        get_mp_context()  # distributed's own fork-server preload first, then ours
+        multiprocessing.get_context("forkserver").set_forkserver_preload(list(WORKER_PRELOAD))
+        cluster = distributed.LocalCluster(
+            n_workers=local_workers, threads_per_worker=1, processes=True, host="127.0.0.1",
+            dashboard_address=None, silence_logs=logging.ERROR,
+        )
     client = distributed.Client(cluster)
     try:
         yield client
