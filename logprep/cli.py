@@ -260,10 +260,12 @@ def cmd_screen(args) -> int:
         rows = screen_pairs(paths, args.pairs, args.out, settings,
                             on_error=print_error,
                             sheets=not args.no_sheet, field=not args.no_field,
-                            field_smear=args.field_smear, backend=backend)
+                            field_smear=args.field_smear, backend=backend, force=args.force)
         bad = sum(r["status"] != "ok" for r in rows)
-        print(f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed; "
-              f"summary {args.out}/pairs_summary.csv")
+        same = sum(bool(r.get("unchanged")) for r in rows)
+        print(f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed"
+              + (f" ({same} unchanged since the last run, skipped)" if same else "")
+              + f"; summary {args.out}/pairs_summary.csv")
         failed = failed or bad > 0
     failed = faults_after_batch(args, faults, settings) or failed
     from logprep.report.overview_files import write_overview

@@ -214,3 +214,79 @@ def test_killed_worker_is_retried_and_the_run_completes(inputs, reference, tmp_p
     child.join(120)
     assert victim is not None and child.exitcode == 1  # 1: broken.las failed, nothing else
     assert tree(out) == tree(reference)
+
+
+@pytest.fixture(scope="module")
+def pair_inputs(tmp_path_factory, example_dir):
+    """Two wells of the invented field and their pair (example_logs/pairs.csv, tied at a top)."""
+    root = tmp_path_factory.mktemp("pairs")
+    src = root / "in"
+    src.mkdir()
+    for name in ("HRM-2.las", "HRM-3.las"):
+        shutil.copy(example_dir / name, src / name)
+    shutil.copy(example_dir / "pairs.csv", root / "pairs.csv")
+    shutil.copy(example_dir / "tops.csv", root / "tops.csv")
+    argv = ["screen", str(src), *ARGS, "--tops", str(root / "tops.csv"), "--pairs", str(root / "pairs.csv")]
+    ref = root / "ref"
+    assert main([*argv, "--out", str(ref)]) == 0
+    return root, argv, ref
+
+
+def pair_line(printed: str) -> str:
+    return next(line for line in printed.splitlines() if "well pair(s)" in line)
+
+
+def test_rerun_skips_unchanged_pairs_and_force_redoes_them(pair_inputs, tmp_path, capsys):
+    root, argv, ref = pair_inputs
+    out = tmp_path / "out"
+    shutil.copytree(ref, out)
+    folder = out / "pair_HRM-2_HRM-3"
+    entry = [e for e in (out / "logprep-manifest.jsonl").read_text().splitlines() if "pair_HRM-2_HRM-3" in e]
+    assert len(entry) == 1 and '"kind": "pair"' in entry[0]
+    capsys.readouterr()
+    before = (folder / "juxtapositions.csv").stat().st_ino
+    assert main([*argv, "--out", str(out)]) == 0
+    assert "1 unchanged since the last run, skipped" in pair_line(capsys.readouterr().out)
+    assert (folder / "juxtapositions.csv").stat().st_ino == before  # not rewritten
+    assert main([*argv, "--out", str(out), "--force"]) == 0
+    assert "skipped" not in pair_line(capsys.readouterr().out)
+    assert (folder / "juxtapositions.csv").stat().st_ino != before  # a new folder put in place
+    assert tree(out) == tree(ref)
+    # a pair folder edited by hand is redone, the wells are not
+    (folder / "juxtapositions.csv").write_text("edited\n")
+    assert main([*argv, "--out", str(out)]) == 0
+    printed = capsys.readouterr().out
+    assert "2 unchanged since the last run, skipped" in printed and "skipped" not in pair_line(printed)
+    assert tree(out) == tree(ref)
+    # a changed hanging-wall input redoes the pair (and that well)
+    changed = tmp_path / "in"
+    shutil.copytree(root / "in", changed)
+    with open(changed / "HRM-3.las", "a") as f:
+        f.write("\n")
+    argv2 = [changed if a == str(root / "in") else a for a in argv]
+    assert main([str(a) for a in argv2] + ["--out", str(out)]) == 0
+    printed = capsys.readouterr().out
+    assert "1 unchanged since the last run, skipped" in printed and "skipped" not in pair_line(printed)
+    # a pair left out of the pairs file is marked, not passed off as current
+    (root / "none.csv").write_text("footwall,hangingwall,marker\n")
+    argv3 = [str(root / "none.csv") if a == str(root / "pairs.csv") else a for a in argv]
+    main([*argv3, "--out", str(out)])
+    assert (folder / "INCOMPLETE.txt").exists()
+
+
+def test_kill_during_pairs_and_rerun_gives_the_uninterrupted_outputs(pair_inputs, tmp_path):
+    _, argv, ref = pair_inputs
+    out = tmp_path / "out"
+    # the wells first, so that the kills below land in the pair part of the run
+    assert main([a for a in argv if a != argv[-1] and a != "--pairs"] + ["--out", str(out)]) == 0
+    k, code = 1, 137
+    while code == 137:
+        code = run_child([*argv, "--out", str(out)], k)
+        pair = out / "pair_HRM-2_HRM-3"
+        if pair.exists() and not (pair / "INCOMPLETE.txt").exists():
+            assert tree(pair) == {n.split("/", 1)[1]: b for n, b in tree(ref).items()
+                                  if n.startswith("pair_HRM-2_HRM-3/")}, "pair folder neither complete nor marked"
+        k += 1
+    assert code == 0 and k > 3
+    assert tree(out) == tree(ref)
+    assert not [p for p in out.rglob(".*")], "hidden leftovers in the output folder"

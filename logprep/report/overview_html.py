@@ -9,6 +9,7 @@ page can never reach out to a network, whatever a well name holds.
 from __future__ import annotations
 
 import datetime as _dt
+import os
 import html
 from urllib.parse import quote
 
@@ -260,6 +261,18 @@ def _options(values) -> str:
     return "".join(f'<option value="{_e(v)}">{_e(v)}</option>' for v in values)
 
 
+
+def _date_note() -> str:
+    """No clock time in the page, so that two runs on the same inputs write the same bytes
+    (a rerun that skips unchanged wells is compared with an uninterrupted run); with
+    ``SOURCE_DATE_EPOCH`` set (reproducible builds) the date it gives, in UTC."""
+    epoch = os.environ.get("SOURCE_DATE_EPOCH", "").strip()
+    try:
+        when = _dt.datetime.fromtimestamp(int(epoch), _dt.UTC)
+    except (ValueError, OverflowError, OSError):
+        return ""
+    return f", dated {when:%Y-%m-%d %H:%M} UTC"
+
 def overview_html(rows: list[OverviewRow], verdict_rule: str = "", title: str = "Field overview") -> str:
     """The whole page as text."""
     n_well = sum(r.kind == "well" for r in rows)
@@ -271,14 +284,14 @@ def overview_html(rows: list[OverviewRow], verdict_rule: str = "", title: str = 
     body = "\n".join(_row_html(r) for r in rows)
     fails = ("<h2>Failed</h2><ul>" + "".join(f'<li class="err"><b>{_e(r.name)}</b>: {_e(r.message)}</li>'
                                               for r in failed) + "</ul>") if failed else ""
-    stamp = _dt.datetime.now().strftime("%Y-%m-%d %H:%M")
+    stamp = _date_note()
     return f"""<!DOCTYPE html>
 <html lang="en"><head><meta charset="utf-8">
 <meta http-equiv="Content-Security-Policy" content="default-src 'none'; script-src 'unsafe-inline'; style-src 'unsafe-inline'; img-src data:">
 <meta name="viewport" content="width=device-width, initial-scale=1">
 <title>{_e(title)}</title><style>{_CSS}</style></head><body>
 <h1>{_e(title)}: {n_well} well(s), {n_pair} pair(s), {len(failed)} failed</h1>
-<p class="sub">logprep {_e(__version__)}, written {stamp}. {_e(verdict_rule)}{'.' if verdict_rule else ''}
+<p class="sub">logprep {_e(__version__)}{stamp}. {_e(verdict_rule)}{'.' if verdict_rule else ''}
 Click a column head to sort; the complete tables are in each folder and in summary.csv.</p>
 <p class="caution"><b>CAUTION:</b> {_e(CAUTION)}</p>
 <div class="top"><div>{svg or '<p>' + _e(map_note) + '</p>'}

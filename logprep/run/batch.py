@@ -183,7 +183,7 @@ def screen_paths(
                 mark_folder(out / folder, "being redone for other settings or input "
                             "(logprep-settings.toml describes the latest run)")
                 manifest.drop(folder)
-        for folder in sorted(set(manifest.entries) - set(folders)):
+        for folder in sorted(manifest.folders("well") - set(folders)):  # pairs: run.pairs
             mark_folder(out / folder, "not part of the latest run on this folder (see "
                         "summary.csv and logprep-settings.toml)")
             manifest.drop(folder)

@@ -12,7 +12,11 @@ A well line holds::
      "settings_sha256": "...", "outputs": {"layers.csv": ["<sha256>", <bytes>], ...},
      "row": {<the well's summary.csv row>}}
 
-and ``{"folder": ..., "drop": true}`` forgets a folder.  A rerun skips a well whose input
+A well pair's folder (``pair_<footwall>_<hangingwall>``) has the same line with
+``"kind": "pair"``; its ``input_sha256`` covers both wells' input hashes and the pair's
+row of the pairs file (:func:`pair_input_sha256`), its settings hash the settings, the
+output options and the tops file, as a well's.  ``{"folder": ..., "drop": true}``
+forgets a folder.  A rerun skips a well whose input
 hash and settings hash are unchanged and whose folder still holds exactly the recorded
 files at the recorded sizes (see :func:`logprep.run.store.folder_matches`).
 """
@@ -109,13 +113,21 @@ class Manifest:
             raise OutputError(f"{self.path}: cannot write ({exc.strerror or exc})") from exc
 
     def record(self, folder: str, *, source: str, input_sha: str, settings_sha: str,
-               outputs: dict[str, str], sizes: dict[str, int], row: dict) -> None:
-        """Note a well folder put in place (``outputs``: file -> sha256, ``sizes``: file -> bytes)."""
+               outputs: dict[str, str], sizes: dict[str, int], row: dict,
+               kind: str = "well") -> None:
+        """Note a well (or, ``kind="pair"``, a well pair's) folder put in place
+        (``outputs``: file -> sha256, ``sizes``: file -> bytes)."""
         rec = {"folder": folder, "source": source, "input_sha256": input_sha,
                "settings_sha256": settings_sha,
                "outputs": {k: [outputs[k], int(sizes[k])] for k in sorted(outputs)}, "row": row}
+        if kind != "well":
+            rec["kind"] = kind
         self.entries[folder] = rec
         self._append(rec)
+
+    def folders(self, kind: str = "well") -> set[str]:
+        """The recorded folders of one kind (``well`` or ``pair``)."""
+        return {f for f, e in self.entries.items() if e.get("kind", "well") == kind}
 
     def drop(self, folder: str) -> None:
         """Forget ``folder`` (its results are being redone or are no longer valid)."""
@@ -139,6 +151,14 @@ class Manifest:
 
     def __exit__(self, *exc) -> None:
         self.close()
+
+
+def pair_input_sha256(pair: dict, footwall_sha: str, hangingwall_sha: str) -> str:
+    """sha256 of what a well pair is made from besides the settings: both wells' input
+    hashes and the pair's row of the pairs file (names, marker, shift)."""
+    blob = json.dumps({"pair": pair, "footwall": footwall_sha, "hangingwall": hangingwall_sha},
+                      sort_keys=True, default=str)
+    return hashlib.sha256(blob.encode()).hexdigest()
 
 
 def readable_path(path: str | Path) -> str:

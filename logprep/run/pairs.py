@@ -145,17 +145,22 @@ def screen_pairs(
     field: bool = True,
     field_smear: bool = False,
     backend=None,
+    force: bool = False,
 ) -> list[dict]:
     """Screen every pair of ``pairs_file`` (wells found among the LAS files under
     ``paths``) and write one folder per pair plus ``pairs_summary.csv`` in ``out_dir``
     (``sheets=False``: no ``sheet.pdf``/``sheet.png``; ``field``/``field_smear`` as for
     wells).  One task per pair on ``backend`` (a :class:`logprep.run.executor.Backend`).
+    Pairs are recorded in the run manifest (:mod:`logprep.run.manifest`): a rerun skips a
+    pair whose two input files, pairs-file row, settings and tops are unchanged and whose
+    folder is intact (its row then carries ``unchanged`` True), unless ``force``.
     Returns the summary rows."""
     from logprep.io.las import read_well_name
     from logprep.io.tops import read_tops
     from logprep.run.batch import find_las_files
     from logprep.run.executor import Backend, TaskLost, run_tasks
-    from logprep.run.manifest import readable_path
+    from logprep.run.batch import run_settings_sha256
+    from logprep.run.manifest import Manifest, readable_path
     from logprep.run.store import commit_folder
     from logprep.run.welltask import OutputOptions
 
@@ -184,9 +189,14 @@ def screen_pairs(
     options = OutputOptions(sheets=sheets, field=field, field_smear=field_smear)
     worker_settings = settings.updated(survey_dir=readable_path(settings.input.survey_dir)) \
         if settings.input.survey_dir else settings
+    manifest = Manifest(out)
+    todo, keys = pairs_to_redo(manifest, out, tasks, where, rows, run_settings_sha256(settings, options), force)
+    summary = out / "pairs_summary.csv"
     try:
-        for k, outcome in run_tasks(pair_task, tasks, backend or Backend(),
+        write_bytes_atomic(summary, csv_bytes(pd.DataFrame(rows, columns=PAIRS_SUMMARY_COLUMNS)))
+        for j, outcome in run_tasks(pair_task, [tasks[k] for k in todo], backend or Backend(),
                                     shared=(worker_settings, tops, options)):
+            k = todo[j]
             (at, folder), p = where[k], pairs.iloc[where[k][0]]
             row = rows[at]
             if isinstance(outcome, TaskLost):
@@ -194,17 +204,50 @@ def screen_pairs(
             fields_, files_out = outcome
             row.update(fields_)
             if files_out is not None:
-                commit_folder(out, folder, files_out)
+                sums = commit_folder(out, folder, files_out)
                 row["folder"] = folder
+                manifest.record(folder, kind="pair", source=f"{tasks[k][1][0]} / {tasks[k][2][0]}",
+                                input_sha=keys[k][0], settings_sha=keys[k][1], outputs=sums,
+                                sizes={n: len(b) for n, b in files_out.items()},
+                                row={c: row[c] for c in PAIRS_SUMMARY_COLUMNS})
             else:
                 row["message"] = _pair_message(pairs_file, p, row["message"])
     finally:
         for row in rows:
             if row["status"] != "ok" and on_error:
                 on_error(row["message"])
-        write_bytes_atomic(out / "pairs_summary.csv",
-                           csv_bytes(pd.DataFrame(rows, columns=PAIRS_SUMMARY_COLUMNS)))
+        write_bytes_atomic(summary, csv_bytes(pd.DataFrame(rows, columns=PAIRS_SUMMARY_COLUMNS)))
+        manifest.compact()
     return rows
+
+
+def pairs_to_redo(manifest, out: Path, tasks: list[tuple], where: list[tuple[int, str]],
+                  rows: list[dict], run_sha: str, force: bool) -> tuple[list[int], list[tuple[str, str]]]:
+    """Which pair tasks to run: the others are unchanged since the last run on ``out``
+    (their rows are filled from the manifest and marked ``unchanged``).  A pair folder to be
+    redone, or no longer in the pairs file, is marked incomplete and forgotten first.
+    Returns the task numbers to run and each task's (input hash, settings hash)."""
+    from logprep.run.batch import _input_sha256
+    from logprep.run.manifest import pair_input_sha256
+    from logprep.run.store import mark_folder
+
+    keys, todo = [], []
+    for k, (pair, fw_file, hw_file) in enumerate(tasks):
+        at, folder = where[k]
+        keys.append((pair_input_sha256(pair, _input_sha256(Path(fw_file[1])),
+                                       _input_sha256(Path(hw_file[1]))), run_sha))
+        if not force and manifest.is_current(folder, *keys[k]):
+            rows[at].update(manifest.entries[folder]["row"], unchanged=True)
+            continue
+        rows[at].update(status="pending", message="not screened yet (the run was stopped before this pair)")
+        todo.append(k)
+        if (out / folder).exists():
+            mark_folder(out / folder, "being redone for other settings or input")
+            manifest.drop(folder)
+    for folder in sorted(manifest.folders("pair") - {f for _, f in where}):
+        mark_folder(out / folder, "not in the latest pairs file run on this folder (see pairs_summary.csv)")
+        manifest.drop(folder)
+    return todo, keys
 
 
 def _pair_message(pairs_file, p, msg: str) -> str:
