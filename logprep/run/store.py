@@ -40,7 +40,7 @@ def _umask() -> int:
 
 def _cannot(path: Path, exc: OSError) -> OutputError:
     return OutputError(f"{path}: cannot write ({exc.strerror or exc}); check the space and "
-                       "permissions of the output folder")
+                       "permissions of the output folder, or give another --out")
 
 
 def sha256_bytes(data: bytes) -> str:
