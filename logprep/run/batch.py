@@ -163,9 +163,6 @@ def screen_paths(
         raise LogprepError(f"no .las files found in {', '.join(map(str, paths))}"
                            + (f" ({scan.summary_line()})" if scan.skipped else "")
                            + "; name LAS files or folders that hold them")
-    if jobs < 1:
-        raise LogprepError(f"--jobs must be 1 or more (got {jobs}); give --jobs 1 for one "
-                           "process or the number of free cores")
     # inputs shared by every well are checked once, before any well is screened
     prepare_out_dir(out)
     clean_leftovers(out)

@@ -59,7 +59,8 @@ def write_file_atomic(path: Path, data: bytes) -> None:
         os.chmod(tmp, 0o666 & ~_umask())
         os.replace(tmp, path)
     except OSError as exc:
-        tmp.unlink(missing_ok=True)
+        with contextlib.suppress(OSError):  # not there, or its folder is not a folder
+            tmp.unlink()
         raise _cannot(path, exc) from exc
 
 
