@@ -137,31 +137,6 @@ def test_unexpected_exception_is_contained_logged_and_counted(tmp_path, capsys, 
     assert "Traceback (most recent call last)" in log and "b_deep.las" in log
 
 
-def test_stalled_well_becomes_an_error_row(tmp_path, capsys):
-    import time
-
-    def slow(depth_m, vsh, **kw):
-        if depth_m[0] > 1010:
-            time.sleep(30)
-        return block_cutoff(depth_m, vsh, **kw)
-
-    BLOCKING_METHODS["slow-test"] = slow
-    try:
-        files = _two_wells(tmp_path)
-        out = tmp_path / "o"
-        t0 = time.perf_counter()
-        rc = main(["screen", *map(str, files), "--out", str(out), "--no-sheet",
-                   "--blocking", "slow-test", "--well-time-limit", "1"])
-        assert time.perf_counter() - t0 < 20
-    finally:
-        BLOCKING_METHODS.pop("slow-test", None)
-    assert rc == 1
-    summary = pd.read_csv(out / "summary.csv")
-    assert summary["status"].tolist() == ["ok", "error", "ok"]
-    assert "per-well time limit of 1 s" in summary["message"][1]
-    assert "--well-time-limit" in summary["message"][1]
-
-
 def test_values_no_instrument_reads_are_bounded(tmp_path):
     # GR of 1e308 and inf are set missing with a warning before any array is sized
     from logprep.run.pipeline import screen_file
