@@ -8,7 +8,7 @@ import warnings
 from pathlib import Path
 
 from logprep import __version__
-from logprep.cli_batch import add_batch_options, batch_backend
+from logprep.cli_batch import UsageParser, add_batch_options, batch_backend
 from logprep.cli_rock import print_tune_summary, rock_options, tune_rock_options
 from logprep.cli_conventions import fault_convention_options
 from logprep.errors import LogprepError
@@ -306,7 +306,7 @@ def cmd_tune(args) -> int:
 
 
 def build_parser() -> argparse.ArgumentParser:
-    parser = argparse.ArgumentParser(
+    parser = UsageParser(
         prog="logprep",
         description="Fault-seal screening from well logs: LAS -> Vshale -> layers -> "
                     "juxtaposition and SGR -> per-well sheets and tables.",

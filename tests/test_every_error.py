@@ -451,3 +451,19 @@ def test_not_reachable_names_real_sites():
     labels = {site_label(k) for k in raise_sites()}
     for label in NOT_REACHABLE:
         assert label.split("#")[0] in labels, label
+
+
+@pytest.mark.parametrize("argv", [
+    ["screen", "--zone-min", "x"], ["screen", "--transform", "nope"], ["nope"],
+    ["tune"], ["screen", "--no-such-option"],
+])
+def test_command_line_usage_errors_say_what_to_do(argv, capsys):
+    # argparse's own refusals (exit status 2) end with where to look, as logprep's do
+    from logprep.cli import main
+
+    with pytest.raises(SystemExit) as exc:
+        main(argv)
+    assert exc.value.code == 2
+    last = capsys.readouterr().err.strip().splitlines()[-1]
+    what, sep, todo = last.partition("; ")
+    assert "error: " in what and sep and "--help" in todo, last
