@@ -262,16 +262,15 @@ def _options(values) -> str:
 
 
 
-def _date_note() -> str:
-    """No clock time in the page, so that two runs on the same inputs write the same bytes
-    (a rerun that skips unchanged wells is compared with an uninterrupted run); with
-    ``SOURCE_DATE_EPOCH`` set (reproducible builds) the date it gives, in UTC."""
+def _written_stamp() -> str:
+    """``", written YYYY-MM-DD HH:MM UTC"`` from ``SOURCE_DATE_EPOCH`` when it is set, else
+    ``""``: a page that carries the wall-clock time would differ between two runs of the same
+    inputs (the batch promises byte-identical outputs; the file's own time says when)."""
     epoch = os.environ.get("SOURCE_DATE_EPOCH", "").strip()
-    try:
-        when = _dt.datetime.fromtimestamp(int(epoch), _dt.UTC)
-    except (ValueError, OverflowError, OSError):
+    if not epoch.isdigit():
         return ""
-    return f", dated {when:%Y-%m-%d %H:%M} UTC"
+    when = _dt.datetime.fromtimestamp(int(epoch), tz=_dt.UTC)
+    return f", written {when:%Y-%m-%d %H:%M} UTC"
 
 def overview_html(rows: list[OverviewRow], verdict_rule: str = "", title: str = "Field overview") -> str:
     """The whole page as text."""
@@ -284,7 +283,7 @@ def overview_html(rows: list[OverviewRow], verdict_rule: str = "", title: str = 
     body = "\n".join(_row_html(r) for r in rows)
     fails = ("<h2>Failed</h2><ul>" + "".join(f'<li class="err"><b>{_e(r.name)}</b>: {_e(r.message)}</li>'
                                               for r in failed) + "</ul>") if failed else ""
-    stamp = _date_note()
+    stamp = _written_stamp()
     return f"""<!DOCTYPE html>
 <html lang="en"><head><meta charset="utf-8">
 <meta http-equiv="Content-Security-Policy" content="default-src 'none'; script-src 'unsafe-inline'; style-src 'unsafe-inline'; img-src data:">
