@@ -62,7 +62,7 @@ def inferred_bit_size_in(depth_m, cali_in, window_m: float = 50.0,
     return np.where(np.isfinite(cali) & (bs > 0), bs, np.nan)
 
 
-def bad_hole_flags(cali_in, bs_in, limit_in: float = 4.0) -> np.ndarray:
+def bad_hole_flags(cali_in, bs_in, limit_in: float = 3.0) -> np.ndarray:
     """Caliper more than ``limit_in`` inches over the bit size: the hole is so enlarged
     that the gamma ray (mud between tool and wall) and the pad tools do not read the
     rock.  (The ordinary ``washout`` QC flag, 1.5 in by default, only keeps samples out of
@@ -142,7 +142,7 @@ def log_tail_flags(depth_m, aux_curves, min_run_m: float = 30.0) -> np.ndarray:
 
 
 def unusable_flags(depth_m, *, filled, qc_failed, cali_in=None, bs_in=None, aux_curves=(),
-                   bad_hole_in: float = 4.0, gap_limit_m: float = 5.0,
+                   bad_hole_in: float = 3.0, gap_limit_m: float = 5.0,
                    top_hole_run_m: float = 30.0) -> dict[str, np.ndarray]:
     """Every reason of :data:`UNUSABLE_REASONS` as a boolean array.  ``bs_in`` None with a
     caliper takes :func:`inferred_bit_size_in`."""

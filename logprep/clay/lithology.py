@@ -22,6 +22,16 @@ The classes (:data:`ROCK_CLASSES`) and the rules:
   midpoint (4.11 b/e) is limestone.
 * ``dolomite``: apparent matrix density above the calcite-dolomite midpoint, ``Umaa``
   between the quartz-dolomite and dolomite-calcite midpoints, clean on the GR; needs PEF.
+* No carbonate is called from the sonic.  The apparent matrix slowness
+  ``dt_maa = (dt - phi dt_f) / (1 - phi)`` (Schlumberger 2009, rho_maa-dt_maa plot) was
+  tried where the PEF is missing and measured on the 15 labelled FORCE wells: labelled
+  limestone (mostly chalk) reads 52-56 us/ft there (median per well), inside the
+  sandstone range 51.0-55.5 (Asquith & Krygowski 2004 [from memory]), because the
+  time-average fails in chalk; a rule "dt_maa below 49.3" added 252 labelled Sandstone
+  samples to the limestone calls for 166 labelled Limestone.  With density and sonic
+  alone (no neutron) the time average puts a quartz sand and a limestone of the same
+  bulk density 2-3 us/ft apart (2.36 g/cm3: 79 against 76.5 us/ft), within the scatter
+  a little clay makes, so no log rule separates them either.
 * ``tuff`` is a class name for described rock only: the North Sea tuffs read like shale
   on these logs (see README, validation), so no log rule calls it.
 

@@ -74,11 +74,11 @@ class ClaySettings:
     drho_max_g_cm3: float = 0.10
     one_sided: str = "recentre"
     rock_classes: bool = True
-    bad_hole_in: float = 4.0
+    bad_hole_in: float = 3.0
     gap_limit_m: float = 5.0
     top_hole_run_m: float = 30.0
     sonic_density: bool = True
-    pef_shale_check: bool = True
+    pef_shale_check: bool = False
 
     def __post_init__(self) -> None:
         require_finite_fields(self)

@@ -82,7 +82,10 @@ def clay_volume(well: WellLog, settings: ClaySettings = ClaySettings(),
     notes = []
     cali = _curve_in(well, "cali", sl, inches, notes)
     bs = _curve_in(well, "bs", sl, inches, notes)
-    flags = gr_flags(depth, gr_read, cali_in=cali, bs_in=bs,
+    # no bit-size curve: washouts judged on the bit size inferred from the caliper (as
+    # the bad-hole check does), so the neutron-density is not read in enlarged hole
+    hole_bs = inferred_bit_size_in(depth, cali) if (bs is None and cali is not None) else bs
+    flags = gr_flags(depth, gr_read, cali_in=cali, bs_in=hole_bs,
                      settings=QcSettings(washout_in=settings.washout_in))
     gr = np.where(any_flag(flags, REPLACED), np.nan, gr_read)
     exclude = any_flag(flags, [k for k in flags if k not in ND_ONLY])
