@@ -69,14 +69,18 @@ sand-bearing rock); 3 fine siltstone; 4 marine siltstone and shale; 5 carbonate 
 6 wackestone, 8 packstone-grainstone, 9 bafflestone (limestones); 7 dolomite."""
 
 GRID: dict[str, tuple] = {
-    "bad_hole_in": (3.0, 4.0, 6.0),
+    "bad_hole_in": (3.0, 4.0),
     "one_sided": ("recentre", "well"),
     "min_contrast": (0.5, 0.7),
     "vsh_combine": ("mean", "min"),
     "sonic_density": (False, True),
     "pef_shale_check": (False, True),
 }
-"""Settings a developer could tune on these wells; every combination is a grid point."""
+"""Settings a developer could tune on these wells; every combination is a grid point.
+A bad-hole limit of 6 in is not offered: it lets the top holes of 31/2-7 (353-443 m,
+21.8 in caliper over a 17.5 in bit) and 34/10-19 (211-291 m, about 23 in) back in as
+reservoir, which the requirements forbid (``tests/test_open_sands.py``); those intervals
+carry no label, so the scores here cannot see them."""
 
 GROUPS_SHOWN = ("shale", "marl", "limestone", "chalk", "dolomite", "coal", "tuff", "anhydrite",
                 "halite")

@@ -188,7 +188,7 @@ def test_reblock_gives_the_screened_layers_rock_classes_included():
     # the notebook's sliders re-block with the pipeline's own column: limestone and no-data
     # layers as in layers.csv, equal to screening again at the setting.  Synthetic well:
     # sand (quartz, phi 0.25) / shale / limestone (calcite, phi 0.2, Pe 5.08) in 20 m beds,
-    # the last 60 m in hole 6 in over the bit (bad hole).
+    # the last 60 m in hole 8 in over the bit (bad hole).
     from logprep.run.pipeline import screen_well
     from logprep.run.reblock import reblock
     n = 1600
@@ -199,7 +199,7 @@ def test_reblock_gives_the_screened_layers_rock_classes_included():
     pef = np.choose(kind, [1.81, 3.4, 5.08, 3.4])
     dt = np.choose(kind, [88.9, 110.0, 77.0, 110.0])
     bs = np.full(n, 8.5)
-    cali = np.where(np.arange(n) >= n - 120, 14.5, 8.6)
+    cali = np.where(np.arange(n) >= n - 120, 16.5, 8.6)
     well = _well(gr, rhob, dt, nphi=nphi, pef=pef, bs=bs, cali=cali)
     base = screen_well(well, ScreenSettings())
     again = screen_column(well, ScreenSettings(sand_cutoff=0.25)).layers
