@@ -78,7 +78,7 @@ class ClaySettings:
     gap_limit_m: float = 5.0
     top_hole_run_m: float = 30.0
     sonic_density: bool = True
-    pef_shale_check: bool = True
+    pef_shale_check: bool = False
 
     def __post_init__(self) -> None:
         require_finite_fields(self)
