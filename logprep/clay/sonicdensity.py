@@ -67,7 +67,8 @@ def sonic_porosity(dt_us_ft, dt_matrix_us_ft: float = DT_MATRIX_SANDSTONE_US_FT,
     0.2
     """
     if not dt_fluid_us_ft > dt_matrix_us_ft:
-        raise SettingsError("fluid slowness must exceed matrix slowness")
+        raise SettingsError("fluid slowness must exceed matrix slowness; give a matrix slowness "
+                            "below the fluid's (for example 55.5 and 189 us/ft)")
     return (np.asarray(dt_us_ft, dtype=float) - dt_matrix_us_ft) / (dt_fluid_us_ft - dt_matrix_us_ft)
 
 
@@ -94,5 +95,6 @@ def vsh_sonic_density(separation, separation_shale: float):
     0.5
     """
     if not np.isfinite(separation_shale) or separation_shale <= 0:
-        raise SettingsError(f"sonic-density shale separation must be > 0 (got {separation_shale:g})")
+        raise SettingsError(f"sonic-density shale separation must be > 0 (got {separation_shale:g}); "
+                            "pick the shale point where the sonic porosity reads above the density porosity")
     return np.clip(np.asarray(separation, dtype=float) / separation_shale, 0.0, 1.0)
