@@ -12,7 +12,7 @@ import pandas as pd
 from matplotlib.figure import Figure
 from matplotlib.patches import Patch
 
-from logprep.fault.pair_capacity import footwall_frame, pair_window_columns_m
+from logprep.fault.pair_capacity import footwall_frame, pair_clay_layers, pair_window_columns_m
 from logprep.report.draw import (
     LITHOLOGY_COLOURS, PAGE_SIZE_IN, ROWS_PAGE1, caution_box, draw_field, draw_sgr_colourbar,
     draw_window_table, riskiest_windows, window_rows,
@@ -141,8 +141,10 @@ def pair_capacity_page(pair: PairScreening) -> Figure:
                                     lambda r: footwall_frame(r, pair.shift_m), axis=1)
                                 if len(pair.windows) else pair.windows)
 
+    fw_clay, hw_clay = pair_clay_layers(pair.fw.layers, pair.hw.layers, s.field)
+
     def columns(w, c, drho, t):
-        return pair_window_columns_m(pair.fw.layers, pair.hw.layers, pair.shift_m, w, c, [drho], t,
+        return pair_window_columns_m(fw_clay, hw_clay, pair.shift_m, w, c, [drho], t,
                                      s.field.pair_slip_source, s.capacity.envelope_sgr_scale_pct)[0]
 
     return seal_capacity_page(as_result, columns_fn=columns, footer=lambda f: pair_footer(f, pair))[0]

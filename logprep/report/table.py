@@ -10,8 +10,12 @@ from logprep.report.layout import MONO_ADVANCE_EM
 TABLE_HEAD = ["#", "footwall\nsand (m)", "hanging-wall\nsand (m)", "throw\nrange (m)",
               "SGR\nmin %", "SGR\nmax %", "oil\ncolumn", "verdict"]
 FORMATION_HEAD = "formations\nfootwall / hw"
-VERDICT_COLOURS = {"leak": "#F6C9A8", "uncertain": "#FBE8A6", "seal": "#CFE8F7"}
-"""Cell shades of the verdict column (light tints of Okabe & Ito vermilion, yellow, sky blue)."""
+VERDICT_COLOURS = {"leak": "#F6C9A8", "uncertain": "#FBE8A6", "seal": "#CFE8F7", "self": "#E0AFCA"}
+"""Cell shades of the verdict column: light tints of the Okabe & Ito (2008) colour-blind-safe
+palette, vermilion (leak), yellow (uncertain), sky blue (seal) and reddish purple (``self``, a
+sand against itself).  The ``self`` tint is the darkest in grey print (WCAG relative
+luminance 0.51 against 0.64-0.81 for the others) and black text on it keeps a contrast
+ratio of about 11:1 (WCAG 2.0 asks 7:1 for the highest level)."""
 MIN_FONT_PT = 5.0
 
 __all__ = ["FORMATION_HEAD", "MONO_ADVANCE_EM", "TABLE_HEAD", "VERDICT_COLOURS", "draw_window_table",

@@ -18,8 +18,8 @@ import pandas as pd
 
 from logprep.io.csvtable import parse_number, read_csv_table
 from logprep.errors import LogprepError
-from logprep.fault.envelope import depth_datum
-from logprep.fault.pair_capacity import pair_seal_capacity_table
+from logprep.fault.capacity import well_reference
+from logprep.fault.pair_capacity import pair_clay_layers, pair_seal_capacity_table
 from logprep.fault.settings import capacity_params
 from logprep.report.writers import (
     csv_bytes, folder_name, pdf_bytes, plain_text, png_bytes, with_window_numbers, write_bytes_atomic,
@@ -71,12 +71,14 @@ def pair_windows(fw, hw, shift_m: float, settings) -> pd.DataFrame:
     """The windows of a pair with their seal-capacity columns and verdicts (as one well's),
     burial taken on the footwall well's depths and datum; ``self_juxtaposed`` is False
     throughout (two wells: a sand never faces itself)."""
-    windows = two_well_windows(fw.layers, hw.layers, shift_m, settings.field.throw_max_m,
+    fw_clay, hw_clay = pair_clay_layers(fw.layers, hw.layers, settings.field)
+    windows = two_well_windows(fw_clay, hw_clay, shift_m, settings.field.throw_max_m,
                                settings.field.pair_slip_source)
-    datum, _ = depth_datum(fw.well)
-    table = pair_seal_capacity_table(windows, fw.layers, hw.layers, shift_m,
-                                     capacity_params(settings.capacity, settings.fault_rock),
-                                     datum_m=datum or 0.0, slip_source=settings.field.pair_slip_source,
+    params = capacity_params(settings.capacity, settings.fault_rock, settings.field)
+    datum, _, surface, _ = well_reference(fw.well, params)
+    table = pair_seal_capacity_table(windows, fw_clay, hw_clay, shift_m, params,
+                                     datum_m=datum or 0.0, surface_elevation_m=surface,
+                                     slip_source=settings.field.pair_slip_source,
                                      length_unit=settings.capacity.length_unit)
     at = table.columns.get_loc("max_contact_m")
     table.insert(at, "self_juxtaposed", False)
@@ -110,7 +112,8 @@ def pair_task(settings, tops, options, pair: dict, fw_file: tuple[str, str],
         check_hanging_wall_down(shift, pair["footwall"], pair["hangingwall"], pair["marker"] or None)
         windows = pair_windows(fw, hw, shift, settings)
         step = settings.field.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
-        grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=settings.field.throw_max_m,
+        grid = two_well_field(*pair_clay_layers(fw.layers, hw.layers, settings.field), shift,
+                              throw_max_m=settings.field.throw_max_m,
                               throw_step_m=settings.field.field_throw_step_m, depth_step_m=step,
                               slip_source=settings.field.pair_slip_source)
         files = {"juxtapositions.csv": csv_bytes(with_window_numbers(windows))}
