@@ -32,6 +32,10 @@ def fault_convention_options(p: argparse.ArgumentParser, d) -> None:
     g.add_argument("--closure", dest="closure_m", type=float, metavar="M",
                    help="structural closure that caps every column (default: none; columns over "
                         f"{d.capacity.unconstrained_column_m:g} m flagged unconstrained)")
+    g.add_argument("--closures", dest="closures_file", metavar="FILE",
+                   help="CSV of well, closure_m: the closure of the trap at each well, used "
+                        "instead of --closure for the wells it lists (pairs: a closure_m column "
+                        "in the pairs file comes first; faults: closure_m in the faults file)")
     g.add_argument("--unconstrained-column", dest="unconstrained_column_m", type=float, metavar="M",
                    help=f"column flagged unconstrained without a closure (default: {d.capacity.unconstrained_column_m:g})")
     for opt, dest, unit in (("--calibration-ift", "calibration_ift_mn_m", "MN/M"),

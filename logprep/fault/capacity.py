@@ -73,6 +73,7 @@ class CapacityParams:
     ground_elevation_m: float | None = None
     uplift_m: float = 0.0
     closure_m: float | None = None
+    closure_source: str = "--closure"
     unconstrained_column_m: float = UNCONSTRAINED_COLUMN_M
     co2_pressure_factor: float = 1.0
     fault_dip_deg: float = DEFAULT_FAULT_DIP_DEG
@@ -308,7 +309,7 @@ def seal_capacity_step(well: WellLog, layers: Layers, windows: pd.DataFrame, par
            else f"depth below sea level = logged depth - {source}")
     parts = [burial_describe(surface_note, params.uplift_m, params.max_burial_m)
              + ("" if params.max_burial_m is not None else f"; {ref}"),
-             closure_describe(params.closure_m, params.unconstrained_column_m),
+             closure_describe(params.closure_m, params.unconstrained_column_m, params.closure_source),
              co2_describe(params)]
     table = seal_capacity_table(windows, layers, params, datum_m=datum or 0.0,
                                 surface_elevation_m=surface, length_unit=length_unit)

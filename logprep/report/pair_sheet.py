@@ -36,6 +36,7 @@ class PairScreening:
     windows: pd.DataFrame
     grid: object
     settings: object
+    closure_note: str = ""
 
     @property
     def title(self) -> str:
@@ -49,7 +50,8 @@ def pair_footer(fig, pair: PairScreening) -> None:
     text = (f"Footwall {fw.source} (sha256 {fw.sha256[:12]}...); hanging wall {hw.source} (sha256 "
             f"{hw.sha256[:12]}...); {tie}: hanging-wall depth = footwall depth - throw + "
             f"{pair.shift_m:.2f} m; slipped interval from the {pair.settings.field.pair_slip_source}; "
-            "settings as for the single wells (logprep-settings.toml).")
+            "settings as for the single wells (logprep-settings.toml)"
+            + (f"; {pair.closure_note}." if pair.closure_note else "."))
     fig.text(0.015, 0.058, wrap_to_width(text, 0.95 * fig.get_figwidth() * 72, 7), fontsize=7,
              va="bottom", family="monospace", parse_math=False)
     caution_box(fig)

@@ -16,6 +16,7 @@ from pathlib import Path
 
 from logprep import __version__
 from logprep.errors import LogprepError
+from logprep.io.closures import read_closures
 from logprep.io.survey import check_survey_dir, unmatched_survey_warnings
 from logprep.io.tops import read_tops
 from logprep.report.writers import prepare_out_dir, well_folder_name, write_summary
@@ -93,6 +94,7 @@ def run_settings_sha256(settings: ScreenSettings, options: OutputOptions, faults
     return settings_sha256(settings.to_dict(), {
         "logprep": __version__, "outputs": options.to_dict(),
         "tops": tree_sha256(settings.input.tops_file), "surveys": tree_sha256(settings.input.survey_dir),
+        **({"closures": tree_sha256(settings.input.closures_file)} if settings.input.closures_file else {}),
         "fault_work": _pickle_sha256((faults, spreads)) if faults or spreads else ""})
 
 
@@ -162,6 +164,8 @@ def screen_paths(
     tops = read_tops(settings.input.tops_file) if settings.input.tops_file else None
     if settings.input.survey_dir:
         check_survey_dir(settings.input.survey_dir)
+    if settings.input.closures_file:
+        read_closures(settings.input.closures_file)
     options = OutputOptions(sheets=sheets, field=field, field_smear=field_smear, time_limit_s=time_limit_s)
     run_sha = run_settings_sha256(settings, options, faults, spreads)
     taken: set[str] = set()
@@ -194,8 +198,9 @@ def screen_paths(
         progress.start(len(files), report.skipped)
         # workers read by absolute path (their working folder may differ) but name the
         # file as given; the survey folder likewise
-        worker_settings = settings.updated(survey_dir=readable_path(settings.input.survey_dir)) \
-            if settings.input.survey_dir else settings
+        worker_settings = settings.updated(**{k: readable_path(getattr(settings.input, k))
+                                              for k in ("survey_dir", "closures_file")
+                                              if getattr(settings.input, k)})
         tasks = [(given[i], readable_path(files[i]), folders[i]) for i in todo]
         last = time.monotonic()
         try:

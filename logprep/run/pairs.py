@@ -10,6 +10,7 @@ folder with ``juxtapositions.csv``, ``sgr_field.npz``, ``sheet.pdf`` and ``sheet
 
 from __future__ import annotations
 
+from dataclasses import replace
 from pathlib import Path
 from collections.abc import Callable, Iterable
 
@@ -19,6 +20,8 @@ import pandas as pd
 from logprep.io.csvtable import parse_number, read_csv_table
 from logprep.errors import LogprepError
 from logprep.fault.capacity import well_reference
+from logprep.fault.closure import describe as closure_describe
+from logprep.io.closures import parse_closure_m
 from logprep.fault.pair_capacity import pair_clay_layers, pair_seal_capacity_table
 from logprep.fault.settings import capacity_params
 from logprep.report.writers import (
@@ -34,7 +37,8 @@ PAIRS_SUMMARY_COLUMNS = ["footwall", "hangingwall", "marker", "shift_m", "slip_s
 
 
 def read_pairs(path: str | Path) -> pd.DataFrame:
-    """The pairs CSV as a frame with columns ``footwall, hangingwall, marker, shift_m``."""
+    """The pairs CSV as a frame with columns ``footwall, hangingwall, marker, shift_m,
+    closure_m`` (text; ``closure_m`` optional, blank for none)."""
     path = Path(path)
     df = read_csv_table(path, PairError, "pairs CSV", dtype=str, keep_default_na=False)
     df.columns = [str(c).strip().lower() for c in df.columns]
@@ -42,15 +46,16 @@ def read_pairs(path: str | Path) -> pd.DataFrame:
     if missing or not ({"marker", "shift_m"} & set(df.columns)):
         raise PairError(f"{path}: needs columns footwall, hangingwall and marker and/or shift_m "
                         f"(found {', '.join(df.columns)})")
-    for c in ("marker", "shift_m"):
+    for c in ("marker", "shift_m", "closure_m"):
         if c not in df.columns:
             df[c] = ""
-    df = df[["footwall", "hangingwall", "marker", "shift_m"]].apply(lambda s: s.str.strip())
+    df = df[["footwall", "hangingwall", "marker", "shift_m", "closure_m"]].apply(lambda s: s.str.strip())
     for k, row in enumerate(df.itertuples(), start=2):
         if not row.footwall or not row.hangingwall:
             raise PairError(f"{path}: line {k}: footwall and hangingwall must both be named")
         if not row.marker and not row.shift_m:
             raise PairError(f"{path}: line {k}: give a marker or a shift_m")
+        parse_closure_m(row.closure_m, f"{path}: line {k}")
         if row.shift_m and not row.marker:
             try:
                 parse_number(row.shift_m)
@@ -67,14 +72,30 @@ def _find(name: str, files: list[Path], names: dict[Path, str]) -> Path:
     raise PairError(f"well {name!r} not found among the LAS files given")
 
 
-def pair_windows(fw, hw, shift_m: float, settings) -> pd.DataFrame:
+def pair_closure(pair_closure_text: str, fw, where: str = "pairs file") -> tuple[float | None, str]:
+    """``(closure_m, source)`` of a pair: its own ``closure_m`` (pairs file) when given, else
+    the footwall well's (the well whose sand traps against the fault: its closures-file
+    closure or ``--closure``, as it was screened with)."""
+    own = parse_closure_m(pair_closure_text, where)
+    if own is not None:
+        return own, where
+    fw_closure = fw.settings.capacity.closure_m
+    source = getattr(fw, "closure_source", "--closure")
+    return fw_closure, (f"footwall well, {source}" if source != "--closure" else source)
+
+
+def pair_windows(fw, hw, shift_m: float, settings, closure: tuple[float | None, str] | None = None
+                 ) -> pd.DataFrame:
     """The windows of a pair with their seal-capacity columns and verdicts (as one well's),
     burial taken on the footwall well's depths and datum; ``self_juxtaposed`` is False
-    throughout (two wells: a sand never faces itself)."""
+    throughout (two wells: a sand never faces itself).  ``closure``: ``(closure_m, source)``
+    from :func:`pair_closure` (default: the footwall well's)."""
     fw_clay, hw_clay = pair_clay_layers(fw.layers, hw.layers, settings.field)
     windows = two_well_windows(fw_clay, hw_clay, shift_m, settings.field.throw_max_m,
                                settings.field.pair_slip_source)
-    params = capacity_params(settings.capacity, settings.fault_rock, settings.field)
+    closure_m, source = closure if closure is not None else pair_closure("", fw)
+    params = replace(capacity_params(settings.capacity, settings.fault_rock, settings.field),
+                     closure_m=closure_m, closure_source=source)
     datum, _, surface, _ = well_reference(fw.well, params)
     table = pair_seal_capacity_table(windows, fw_clay, hw_clay, shift_m, params,
                                      datum_m=datum or 0.0, surface_elevation_m=surface,
@@ -90,8 +111,6 @@ def pair_task(settings, tops, options, pair: dict, fw_file: tuple[str, str],
     """One well pair as a batch task (see :mod:`logprep.run.executor`): screen both wells
     (``(given, readable)`` paths), tie them and return the pair's summary fields and its
     files as bytes (None on a :class:`LogprepError`, with ``status`` ``error``)."""
-    from dataclasses import replace
-
     from logprep.io.las import read_well
     from logprep.run.pipeline import screen_well
 
@@ -110,7 +129,9 @@ def pair_task(settings, tops, options, pair: dict, fw_file: tuple[str, str],
         else:
             shift = parse_number(pair["shift_m"])
         check_hanging_wall_down(shift, pair["footwall"], pair["hangingwall"], pair["marker"] or None)
-        windows = pair_windows(fw, hw, shift, settings)
+        closure = pair_closure(pair.get("closure_m", ""), fw,
+                               f"pairs file, {pair['footwall']} / {pair['hangingwall']}")
+        windows = pair_windows(fw, hw, shift, settings, closure)
         step = settings.field.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
         grid = two_well_field(*pair_clay_layers(fw.layers, hw.layers, settings.field), shift,
                               throw_max_m=settings.field.throw_max_m,
@@ -123,8 +144,10 @@ def pair_task(settings, tops, options, pair: dict, fw_file: tuple[str, str],
             from logprep.report.pair_sheet import PairScreening, build_pair_sheet
 
             with plain_text():
-                pages = build_pair_sheet(PairScreening(fw, hw, shift, pair["marker"] or "", windows,
-                                                       grid, settings))
+                pages = build_pair_sheet(PairScreening(
+                    fw, hw, shift, pair["marker"] or "", windows, grid, settings,
+                    closure_note=closure_describe(closure[0], settings.capacity.unconstrained_column_m,
+                                                  closure[1])))
                 files.update({"sheet.pdf": pdf_bytes(pages), "sheet.png": png_bytes(pages[0])})
     except LogprepError as exc:
         msg = str(exc).splitlines()[0]
