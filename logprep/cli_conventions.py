@@ -22,6 +22,9 @@ def fault_convention_options(p: argparse.ArgumentParser, d) -> None:
     g.add_argument("--fault-dip", dest="fault_dip_deg", type=float, metavar="DEG",
                    help="fault dip: displacement = throw / sin(dip) for fault rock, CSP along the "
                         f"fault (default: {d.field.fault_dip_deg:g})")
+    g.add_argument("--smear-clay-min", dest="smear_clay_min", type=float, metavar="FRACTION",
+                   help="least clay fraction of a shale or heterolith layer to count as a smear "
+                        f"source bed in SSF and CSP (default: {d.field.smear_clay_min:g})")
     g.add_argument("--water-depth", dest="water_depth_m", type=float, metavar="M",
                    help="water depth: burial is measured below the sea floor (default: from the "
                         "LAS header, else the surface at sea level)")

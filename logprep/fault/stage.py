@@ -39,13 +39,16 @@ def fault_stage(well: WellLog, layers: Layers, depth_m, vsh, field: FieldSetting
                      throw_step_m=field.field_throw_step_m, depth_step_m=field.field_depth_step_m,
                      source=field.sgr_field_source)
     factor = csp_factor(field.fault_dip_deg, bed_dip_deg)
-    grid = with_smear_fields(grid, clay, factor)
+    grid = with_smear_fields(grid, clay, factor, clay_min=field.smear_clay_min)
     params = replace(capacity_params(capacity, fault_rock, field), closure_source=closure_source)
     windows, note = seal_capacity_step(well, clay, windows, params, capacity.length_unit)
-    windows = windows.join(window_smear(clay, windows, field.throw_max_m, csp_factor=factor))
+    windows = windows.join(window_smear(clay, windows, field.throw_max_m, csp_factor=factor,
+                                        clay_min=field.smear_clay_min))
     notes = [clay_describe(field.clay_conversion, field.shale_clay_fraction), note,
              f"fault dip {field.fault_dip_deg:g} deg: fault-rock displacement = throw / sin(dip); "
-             f"CSP along the fault (x {factor:.3f})"]
+             f"CSP along the fault (x {factor:.3f})",
+             f"smear source beds: shale and heterolith layers with clay fraction >= "
+             f"{field.smear_clay_min:g} (--smear-clay-min), full thickness"]
     if field.heterolith_reservoir_ntg is not None:
         notes.append(f"heteroliths with net-to-gross >= {field.heterolith_reservoir_ntg:g} screened as reservoir")
     return windows, grid, notes
