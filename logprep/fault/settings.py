@@ -57,7 +57,7 @@ class FieldSettings:
     shale_clay_fraction : float
         Clay fraction of pure shale (``Vcl = shale_clay_fraction x Vsh``).  Default 1: Vsh
         is taken as the clay fraction, as the published SGR calibrations did; about 0.6 for
-        an average shale (Shaw & Weaver 1965, from memory).
+        an average shale (60.9 % clay minerals, Shaw & Weaver 1965).
     heterolith_reservoir_ntg : float or None
         Screen heteroliths whose net-to-gross is at least this as reservoir beside the
         sands (None: sands only).

@@ -6,11 +6,7 @@ from __future__ import annotations
 
 from dataclasses import replace
 
-from logprep.fault.capacity import seal_capacity_step
-from logprep.fault.juxtaposition import sand_windows
-from logprep.fault.settings import capacity_params
-from logprep.fault.sgr import sgr_field
-from logprep.fault.smear import window_smear, with_smear_fields
+from logprep.fault.stage import fault_stage
 from logprep.layers.blocking import block_with_boundaries
 from logprep.run.pipeline import WellScreening
 
@@ -32,12 +28,8 @@ def reblock(result: WellScreening, **changes) -> WellScreening:
     forced = result.tops["top_m"].to_numpy(float) if lay.honour_tops and len(result.tops) else ()
     layers = block_with_boundaries(lay.blocking, result.depth_m, result.vsh, forced,
                                    filled=result.filled, **lay.blocking_kwargs())
-    windows = sand_windows(layers, fld.throw_max_m)
-    grid = with_smear_fields(sgr_field(layers, result.depth_m, result.vsh, throw_max_m=fld.throw_max_m,
-                                       throw_step_m=fld.field_throw_step_m,
-                                       depth_step_m=fld.field_depth_step_m, source=fld.sgr_field_source),
-                             layers)
-    windows, _ = seal_capacity_step(result.well, layers, windows,
-                                    capacity_params(s.capacity, s.fault_rock), s.capacity.length_unit)
-    windows = windows.join(window_smear(layers, windows, fld.throw_max_m))
+    # the pipeline's own fault stage: clay step, reservoir layers, field, smear, capacity
+    windows, grid, _ = fault_stage(result.well, layers, result.depth_m, result.vsh, fld, s.capacity,
+                                   s.fault_rock, s.input.bed_dip_deg,
+                                   closure_source=getattr(result, "closure_source", "--closure"))
     return replace(result, settings=s, layers=layers, windows=windows, grid=grid)
