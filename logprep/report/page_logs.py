@@ -13,8 +13,8 @@ from logprep.report.labels import formation_labels
 from logprep.report.layout import robust_upper
 from logprep.report.rockdraw import ROCK_COLOURS, hatch_no_data_field, hatch_no_data_layers, rock_legend_handles
 from logprep.report.draw import (
-    INK, LITHOLOGY_COLOURS, NO_DATA, PAGE_SIZE_IN, QC_COLOURS, ROWS_PAGE1, VERDICT_COLOURS, WINDOW_INK,
-    draw_field, draw_footer, draw_sgr_colourbar, draw_window_table, riskiest_windows, window_rows,
+    INK, LITHOLOGY_COLOURS, NO_DATA, PAGE_SIZE_IN, QC_COLOURS, ROWS_PAGE1, WINDOW_INK, draw_field,
+    draw_footer, draw_sgr_colourbar, draw_window_table, riskiest_windows, window_rows,
 )
 
 
@@ -141,9 +141,6 @@ def draw_legend(ax, result) -> None:
     handles += [Patch(facecolor=c, edgecolor="#666666", label=f"layer: {n}")
                 for n, c in LITHOLOGY_COLOURS.items() if n not in ROCK_COLOURS]
     handles += rock_legend_handles(result.layers)
-    handles += [Patch(facecolor=c, edgecolor="#666666", label=f"table verdict: {v}"
-                      + (" (sand against itself)" if v == "self" else ""))
-                for v, c in VERDICT_COLOURS.items()]
     ax.legend(handles=handles, loc="upper left", ncol=2, fontsize=8, frameon=False,
               title="Triangle diagram and layers", title_fontsize=9)
     L = result.layers
@@ -194,6 +191,6 @@ def log_page(result) -> list[Figure]:
     draw_window_table(fig.add_subplot(right[1]),
                       window_rows(result.windows, numbers, result.settings.capacity.sgr_threshold_pct,
                                   result.settings.capacity.length_unit, tops=getattr(result, "tops", None)),
-                      title)
+                      title, verdict_key=True)
     draw_footer(fig, result)
     return [fig]
