@@ -50,7 +50,7 @@ def parse_closure_m(text, where: str) -> float | None:
 def read_closures(path: str | Path) -> dict[str, tuple[str, float | None]]:
     """The closures file as ``{well_key: (well name as written, closure_m or None)}``."""
     path = Path(path)
-    df = read_csv_table(path, ClosuresError, "closures CSV", dtype=str, keep_default_na=False,
+    df = read_csv_table(path, ClosuresError, "closures CSV", "--closures", dtype=str, keep_default_na=False,
                         comment="#")
     df.columns = [str(c).strip().lower() for c in df.columns]
     missing = [c for c in ("well", "closure_m") if c not in df.columns]
