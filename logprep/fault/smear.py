@@ -92,7 +92,8 @@ SOURCE_CLAY_DECIMALS = 6
 
 def check_smear_clay_min(value: float) -> None:
     if not 0 < value <= 1:
-        raise SettingsError(f"--smear-clay-min must lie within 0 (exclusive) and 1 (got {value:g})")
+        raise SettingsError(f"--smear-clay-min must lie within 0 (exclusive) and 1 (got {value:g}); "
+                            "give the least clay fraction of a smearing bed, e.g. 0.4")
 
 
 def source_beds(layers: Layers, clay_min: float = SMEAR_SOURCE_CLAY_MIN) -> np.ndarray:
