@@ -6,9 +6,11 @@ from __future__ import annotations
 
 from dataclasses import replace
 
+import numpy as np
+
 from logprep.fault.stage import fault_stage
-from logprep.layers.blocking import block_with_boundaries
-from logprep.run.pipeline import WellScreening
+from logprep.layers.stage import blocked_column
+from logprep.run.pipeline import WellScreening, qc_flagged
 
 BLOCKING_FIELDS = ("sand_cutoff", "shale_cutoff", "min_bed_m", "blocking", "changepoint_penalty",
                    "honour_tops")
@@ -26,8 +28,10 @@ def reblock(result: WellScreening, **changes) -> WellScreening:
     s = result.settings.updated(**changes)
     lay, fld = s.layers, s.field
     forced = result.tops["top_m"].to_numpy(float) if lay.honour_tops and len(result.tops) else ()
-    layers = block_with_boundaries(lay.blocking, result.depth_m, result.vsh, forced,
-                                   filled=result.filled, **lay.blocking_kwargs())
+    # the pipeline's own blocked column: rock classes and no-data layers as in layers.csv
+    raw = np.where(result.filled, np.nan, result.vsh)
+    layers = blocked_column(result.depth_m, raw, lay, forced_m=forced, rock=result.rock,
+                            unusable=result.unusable, flagged=qc_flagged(result.qc_flags)).layers
     # the pipeline's own fault stage: clay step, reservoir layers, field, smear, capacity
     windows, grid, _ = fault_stage(result.well, layers, result.depth_m, result.vsh, fld, s.capacity,
                                    s.fault_rock, s.input.bed_dip_deg,
