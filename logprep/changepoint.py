@@ -55,7 +55,8 @@ def pelt_mean_breaks(x, penalty: float, min_size: int = 1) -> np.ndarray:
     n = x.size
     if penalty < 0 or min_size < 1:
         raise SettingsError(f"changepoint search needs penalty >= 0 and min_size >= 1 "
-                            f"(got {penalty:g}, {min_size})")
+                            f"(got {penalty:g}, {min_size}); set --changepoint-penalty to 0 or more and "
+                            "--min-bed to a positive length")
     if n < 2 * min_size:
         return np.zeros(0, dtype=np.intp)
     s1 = np.concatenate(([0.0], np.cumsum(x)))

@@ -8,7 +8,7 @@ import warnings
 from pathlib import Path
 
 from logprep import __version__
-from logprep.cli_batch import add_batch_options, batch_backend
+from logprep.cli_batch import UsageParser, add_batch_options, batch_backend
 from logprep.cli_rock import print_tune_summary, rock_options, tune_rock_options
 from logprep.cli_conventions import fault_convention_options
 from logprep.errors import LogprepError
@@ -211,7 +211,7 @@ def _add_locations_option(p: argparse.ArgumentParser) -> None:
 
 
 def cmd_screen(args) -> int:
-    from logprep.run.contain import final_line, print_error
+    from logprep.run.contain import final_line, pairs_line, print_error
     from logprep.run.batch import screen_paths
     from logprep.io.examples import example_logs_dir
 
@@ -248,7 +248,6 @@ def cmd_screen(args) -> int:
         progress=Progress("quiet" if args.quiet else "auto", sys.stderr),
         backend=backend, sheets=not args.no_sheet, field=not args.no_field,
         field_smear=args.field_smear, force=args.force, **faults.batch_kwargs,
-        time_limit_s=args.well_time_limit,
         overview=False,  # written below, once the pairs and faults are in the folder too
     )
     for msg in report.warnings:
@@ -262,10 +261,8 @@ def cmd_screen(args) -> int:
                             on_error=print_error,
                             sheets=not args.no_sheet, field=not args.no_field,
                             field_smear=args.field_smear, backend=backend)
-        bad = sum(r["status"] != "ok" for r in rows)
-        print(f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed; "
-              f"summary {args.out}/pairs_summary.csv")
-        failed = failed or bad > 0
+        print(pairs_line(rows, args.out))
+        failed = failed or any(r["status"] != "ok" for r in rows)
     failed = faults_after_batch(args, faults, settings) or failed
     from logprep.report.overview_files import write_overview
 
@@ -310,7 +307,7 @@ def cmd_tune(args) -> int:
 
 
 def build_parser() -> argparse.ArgumentParser:
-    parser = argparse.ArgumentParser(
+    parser = UsageParser(
         prog="logprep",
         description="Fault-seal screening from well logs: LAS -> Vshale -> layers -> "
                     "juxtaposition and SGR -> per-well sheets and tables.",
@@ -332,8 +329,11 @@ def build_parser() -> argparse.ArgumentParser:
                    help="output folder (default: ./%(default)s)")
     _add_config_option(p)
     add_batch_options(p)
-    p.add_argument("--well-time-limit", type=float, default=900.0, metavar="S", help="seconds "
-                   "a well may take before it is stopped as an error; 0 = none (default: %(default)g)")
+    from logprep.io.settings import InputSettings
+
+    p.add_argument("--well-time-limit", dest="well_time_limit_s", type=float, metavar="S", help="seconds "
+                   "a well may take before it is stopped as an error; 0 = none (default: "
+                   f"{InputSettings.well_time_limit_s:g})")
     p.add_argument("--pairs", metavar="FILE",
                    help="also screen well pairs across a fault: CSV of footwall, hangingwall and "
                         "marker (a top in both wells, needs --tops) or shift_m; one folder per pair")

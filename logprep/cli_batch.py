@@ -5,6 +5,15 @@ from __future__ import annotations
 import argparse
 
 
+class UsageParser(argparse.ArgumentParser):
+    """An argument parser whose usage errors say what to do, as every logprep error does:
+    ``argument --zone-min: invalid float value: 'x'; see 'logprep screen --help' ...``
+    (its subcommands' parsers are of this class too)."""
+
+    def error(self, message: str):
+        super().error(f"{message}; see '{self.prog} --help' for the options and the values they take")
+
+
 def add_batch_options(p: argparse.ArgumentParser) -> None:
     g = p.add_argument_group("batch: where wells run, what is written, reruns")
     g.add_argument("--jobs", type=int, default=1, metavar="N",

@@ -37,4 +37,5 @@ def require_finite_fields(settings) -> None:
     for f in fields(settings):
         value = getattr(settings, f.name)
         if isinstance(value, (int, float)) and not isinstance(value, bool) and not math.isfinite(value):
-            raise SettingsError(f"setting {f.name} must be a finite number (got {value})")
+            raise SettingsError(f"setting {f.name} must be a finite number (got {value}); give "
+                                f"a number (not nan or inf) in the option or the settings file")

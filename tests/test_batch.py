@@ -63,3 +63,14 @@ def test_unreadable_auxiliary_unit_leaves_curve_out_not_the_well():
     r = screen_file(open_logs_path("las_standard_examples", "1.2", "sample_wrapped.las"))
     assert any(n.startswith("RHOB not used: bulk-density unit 'K/M'") for n in r.notes)
     assert len(r.layers) >= 1
+
+
+def test_error_line_names_a_relative_path_once(tmp_path, data_dir, monkeypatch, capsys):
+    # the file named as the user typed it, once: `in/broken.las: not a readable ...`
+    # (the one-line error form `FILE: what; what to do`, common practice, no source)
+    (tmp_path / "in").mkdir()
+    shutil.copy(data_dir / "not_las.las", tmp_path / "in" / "broken.las")
+    monkeypatch.chdir(tmp_path)
+    assert main(["screen", "in/broken.las", "--no-sheet", "--out", "o"]) == 1
+    err = [ln for ln in capsys.readouterr().err.splitlines() if ln.startswith("error:")]
+    assert err == [err[0]] and err[0].startswith("error: in/broken.las: not a readable LAS file")

@@ -188,6 +188,16 @@ def test_html_is_self_contained_and_escapes_names(tables_batch):
     assert not re.search(r"href=\"(?:https?:|//)", page)
 
 
+def test_html_carries_no_wall_clock_time(tables_batch, monkeypatch):
+    # reproducible builds: the time comes from SOURCE_DATE_EPOCH or not at all
+    # (https://reproducible-builds.org/specs/source-date-epoch/)
+    rows = overview_rows(tables_batch)
+    monkeypatch.delenv("SOURCE_DATE_EPOCH", raising=False)
+    assert "written" not in overview_html(rows, "rule")
+    monkeypatch.setenv("SOURCE_DATE_EPOCH", "1700000000")  # 2023-11-14 22:13:20 UTC
+    assert ", written 2023-11-14 22:13 UTC." in overview_html(rows, "rule")
+
+
 def test_pdf_page_text_is_legible(tables_batch):
     write_overview(tables_batch)
     assert (tables_batch / "overview.pdf").read_bytes().startswith(b"%PDF")

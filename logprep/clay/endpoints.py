@@ -208,7 +208,9 @@ def pick_endpoints(
     gr = np.asarray(gr_api, dtype=float)
     ok = np.isfinite(gr) if exclude is None else np.isfinite(gr) & ~np.asarray(exclude, bool)
     if not ok.any():
-        raise SettingsError("no GR sample passed QC; cannot pick clean and shale lines")
+        raise SettingsError("no GR sample passed QC (all missing or flagged), so no clean "
+                            "and shale lines can be picked; check the GR curve (--gr-curve names another) "
+                            "or relax --washout and --bad-hole")
     c_all = resolve_endpoint(clean, gr[ok])
     s_all = resolve_endpoint(shale, gr[ok])
     if c_all >= s_all:

@@ -67,7 +67,8 @@ def bad_hole_flags(cali_in, bs_in, limit_in: float = 4.0) -> np.ndarray:
     rock.  (The ordinary ``washout`` QC flag, 1.5 in by default, only keeps samples out of
     the picks; this one takes them out of the rock.)"""
     if not limit_in > 0:
-        raise SettingsError(f"--bad-hole must be > 0 in (got {limit_in:g})")
+        raise SettingsError(f"--bad-hole must be > 0 in (got {limit_in:g}); give a caliper "
+                            "excess above 0 in (bad_hole_in in a settings file)")
     with np.errstate(invalid="ignore"):
         return (np.asarray(cali_in, dtype=float) - np.asarray(bs_in, dtype=float)) > limit_in
 
@@ -75,7 +76,8 @@ def bad_hole_flags(cali_in, bs_in, limit_in: float = 4.0) -> np.ndarray:
 def long_gap_flags(depth_m, filled, limit_m: float = 5.0) -> np.ndarray:
     """Interpolated samples in runs longer than ``limit_m`` metres."""
     if not limit_m >= 0:
-        raise SettingsError(f"--gap-limit must be >= 0 m (got {limit_m:g})")
+        raise SettingsError(f"--gap-limit must be >= 0 m (got {limit_m:g}); give a length of "
+                            "0 m or more (gap_limit_m in a settings file)")
     f = np.asarray(filled, dtype=bool)
     depth = np.asarray(depth_m, dtype=float)
     out = np.zeros(f.size, dtype=bool)

@@ -77,23 +77,31 @@ class ClaySettings:
         if self.zoning not in ZONINGS:
             raise SettingsError(f"unknown zoning {self.zoning!r}; choose one of {', '.join(ZONINGS)}")
         if not self.zone_min_m > 0:
-            raise SettingsError(f"--zone-min must be > 0 m (got {self.zone_min_m:g})")
+            raise SettingsError(f"--zone-min must be > 0 m (got {self.zone_min_m:g}); give a zone "
+                                "length above 0 m (zone_min_m in a settings file)")
         if not self.zone_step_api >= 0:
-            raise SettingsError(f"--zone-step must be >= 0 API (got {self.zone_step_api:g})")
+            raise SettingsError(f"--zone-step must be >= 0 API (got {self.zone_step_api:g}); give "
+                                "a GR step of 0 API or more (zone_step_api in a settings file)")
         if not 0 <= self.min_contrast <= 1:
-            raise SettingsError(f"--min-contrast must be within 0-1 (got {self.min_contrast:g})")
+            raise SettingsError(f"--min-contrast must be within 0-1 (got {self.min_contrast:g}); "
+                                "give a fraction such as 0.2 (min_contrast in a settings file)")
         if not self.washout_in > 0:
-            raise SettingsError(f"--washout must be > 0 in (got {self.washout_in:g})")
+            raise SettingsError(f"--washout must be > 0 in (got {self.washout_in:g}); give a "
+                                "caliper excess above 0 in (washout_in in a settings file)")
         if not self.drho_max_g_cm3 > 0:
-            raise SettingsError(f"--drho-max must be > 0 g/cm3 (got {self.drho_max_g_cm3:g})")
+            raise SettingsError(f"--drho-max must be > 0 g/cm3 (got {self.drho_max_g_cm3:g}); "
+                                "give a density correction above 0 (drho_max_g_cm3 in a settings file)")
         if self.one_sided not in ONE_SIDED:
             raise SettingsError(f"unknown one-sided rule {self.one_sided!r}; choose one of "
                                 f"{', '.join(ONE_SIDED)}")
         if not self.bad_hole_in > 0:
-            raise SettingsError(f"--bad-hole must be > 0 in (got {self.bad_hole_in:g})")
+            raise SettingsError(f"--bad-hole must be > 0 in (got {self.bad_hole_in:g}); give a "
+                                "caliper excess above 0 in (bad_hole_in in a settings file)")
         if not self.gap_limit_m >= 0:
-            raise SettingsError(f"--gap-limit must be >= 0 m (got {self.gap_limit_m:g})")
+            raise SettingsError(f"--gap-limit must be >= 0 m (got {self.gap_limit_m:g}); give a "
+                                "length of 0 m or more (gap_limit_m in a settings file)")
         if not self.top_hole_run_m > 0:
-            raise SettingsError(f"--top-hole-run must be > 0 m (got {self.top_hole_run_m:g})")
+            raise SettingsError(f"--top-hole-run must be > 0 m (got {self.top_hole_run_m:g}); "
+                                "give a length above 0 m (top_hole_run_m in a settings file)")
         object.__setattr__(self, "gr_clean", parse_endpoint(self.gr_clean))
         object.__setattr__(self, "gr_shale", parse_endpoint(self.gr_shale))

@@ -136,13 +136,15 @@ def parse_endpoint(text: str | float) -> float | str:
     if m:
         q = float(m.group(1))
         if not 0.0 <= q <= 100.0:
-            raise SettingsError(f"GR endpoint {text!r}: percentile must be within p0..p100")
+            raise SettingsError(f"GR endpoint {text!r}: percentile must be within p0..p100; give "
+                                  "--gr-clean/--gr-shale as p0 to p100 (for example p5)")
         return f"p{m.group(1)}"
     try:
         return float(s)
     except ValueError:
         raise SettingsError(
-            f"GR endpoint {text!r}: give a value in API (e.g. 30) or a percentile (e.g. p5)"
+            f"GR endpoint {text!r} is neither a number nor a percentile; give "
+            "--gr-clean/--gr-shale a value in API (e.g. 30) or a percentile (e.g. p5)"
         ) from None
 
 
@@ -254,7 +256,8 @@ def density_porosity(rhob_g_cm3, rho_matrix_g_cm3: float = 2.65, rho_fluid_g_cm3
     0.2
     """
     if not rho_matrix_g_cm3 > rho_fluid_g_cm3:
-        raise SettingsError("matrix density must exceed fluid density")
+        raise SettingsError("matrix density must exceed fluid density; give a matrix density "
+                            "above the fluid density (for example 2.65 and 1.0 g/cm3)")
     rhob = np.asarray(rhob_g_cm3, dtype=float)
     return (rho_matrix_g_cm3 - rhob) / (rho_matrix_g_cm3 - rho_fluid_g_cm3)
 
@@ -294,7 +297,8 @@ def vsh_neutron_density(nphi_v_v, phid, separation_shale: float):
     """
     if not np.isfinite(separation_shale) or separation_shale <= 0:
         raise SettingsError(
-            f"neutron-density shale separation must be > 0 (got {separation_shale:g})"
+            f"neutron-density shale separation must be > 0 (got {separation_shale:g}); "
+            "pick the neutron-density shale point where the neutron reads above the density porosity"
         )
     sep = np.asarray(nphi_v_v, dtype=float) - np.asarray(phid, dtype=float)
     return np.clip(sep / separation_shale, 0.0, 1.0)

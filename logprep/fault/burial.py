@@ -66,10 +66,12 @@ def surface_elevation_m(header: Mapping[str, str] | None = None, header_units: M
     """Elevation (m above sea level) of the sea floor or the ground, and a note naming
     its source (see the module notes for the order).  Offshore it is minus the water depth."""
     if water_depth_m is not None and ground_elevation_m is not None:
-        raise SettingsError("give --water-depth (offshore) or --ground-elevation (onshore), not both")
+        raise SettingsError("--water-depth and --ground-elevation both given; give --water-depth "
+                            "(offshore) or --ground-elevation (onshore), not both")
     if water_depth_m is not None:
         if not water_depth_m >= 0:
-            raise SettingsError(f"--water-depth must be >= 0 m (got {water_depth_m:g})")
+            raise SettingsError(f"--water-depth must be >= 0 m (got {water_depth_m:g}); give "
+                                "the water depth as 0 m or more, or --ground-elevation onshore")
         return -float(water_depth_m), f"sea floor at {water_depth_m:g} m water depth (--water-depth)"
     if ground_elevation_m is not None:
         return float(ground_elevation_m), f"ground at {ground_elevation_m:g} m above sea level (--ground-elevation)"
@@ -97,7 +99,8 @@ def burial_depth_m(depth_ss_m, surface_elevation_m: float = 0.0, uplift_m: float
     1995.0
     """
     if not uplift_m >= 0:
-        raise SettingsError(f"--uplift must be >= 0 m (got {uplift_m:g})")
+        raise SettingsError(f"--uplift must be >= 0 m (got {uplift_m:g}); give the uplift as 0 "
+                            "m or more (uplift_m in a settings file)")
     return np.maximum(np.asarray(depth_ss_m, float) + surface_elevation_m + uplift_m, 0.0)
 
 

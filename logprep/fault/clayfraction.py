@@ -56,7 +56,8 @@ module notes; about 0.6 for an average shale, Shaw & Weaver 1965, from memory)."
 
 def check_shale_clay_fraction(value: float) -> None:
     if not 0 < value <= 1:
-        raise SettingsError(f"--shale-clay-fraction must lie within 0 (exclusive) and 1 (got {value:g})")
+        raise SettingsError(f"--shale-clay-fraction must lie within 0 (exclusive) and 1 (got {value:g}); "
+                            "give a fraction such as 0.6 (shale_clay_fraction in a settings file)")
 
 
 def get_clay_conversion(name: str) -> Callable:

@@ -39,9 +39,11 @@ CLOSURE_COLUMNS = ["column_oil_limit", "column_gas_limit", "column_co2_limit", "
 
 def check_closure(closure_m: float | None, unconstrained_column_m: float) -> None:
     if closure_m is not None and not closure_m > 0:
-        raise SettingsError(f"--closure must be > 0 m (got {closure_m:g})")
+        raise SettingsError(f"--closure must be > 0 m (got {closure_m:g}); give the closure "
+                            "height above 0 m, or leave --closure out for no cap")
     if not unconstrained_column_m > 0:
-        raise SettingsError(f"--unconstrained-column must be > 0 m (got {unconstrained_column_m:g})")
+        raise SettingsError(f"--unconstrained-column must be > 0 m (got {unconstrained_column_m:g}); "
+                            "give a column height above 0 m (unconstrained_column_m in a settings file)")
 
 
 def capped_column_m(column_m, closure_m: float | None, leaks) -> tuple[np.ndarray, np.ndarray]:

@@ -44,11 +44,13 @@ def co2_pressure_factor(calibration_ift_mn_m: float = DEFAULTS["calibration_ift_
     """
     for name, v in (("--calibration-ift", calibration_ift_mn_m), ("--co2-ift", co2_ift_mn_m)):
         if not v > 0:
-            raise SettingsError(f"{name} must be > 0 mN/m (got {v:g})")
+            raise SettingsError(f"{name} must be > 0 mN/m (got {v:g}); give an interfacial "
+                                "tension above 0 mN/m")
     for name, v in (("--calibration-contact-angle", calibration_contact_deg),
                     ("--co2-contact-angle", co2_contact_deg)):
         if not 0 <= v < 90:
             raise SettingsError(f"{name} must lie within 0 and 90 degrees (got {v:g}); at 90 "
-                                "degrees or more the rock is not water-wet and holds no column")
+                                "degrees or more the rock is not water-wet and holds no column; give an "
+                                "angle below 90 degrees")
     return (co2_ift_mn_m * math.cos(math.radians(co2_contact_deg))) / (
         calibration_ift_mn_m * math.cos(math.radians(calibration_contact_deg)))

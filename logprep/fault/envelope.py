@@ -73,7 +73,8 @@ def envelope_c(burial_depth_m, class_bounds_m=ENVELOPE_CLASS_BOUNDS_M, class_c=E
     cs = np.asarray(class_c, float)
     if cs.size != bounds.size + 1:
         raise SettingsError(
-            f"envelope: {bounds.size} class boundaries need {bounds.size + 1} constants C (got {cs.size})"
+            f"envelope: {bounds.size} class boundaries need {bounds.size + 1} constants C (got {cs.size}); "
+            "give --envelope-c one value more than --envelope-bounds"
         )
     i = np.searchsorted(bounds, np.asarray(burial_depth_m, float), side="right")
     return cs[i]
@@ -216,8 +217,8 @@ def co2_density_kgm3(pressure_pa, temperature_k):
         from CoolProp.CoolProp import PropsSI
     except ImportError:
         raise SettingsError(
-            "CO2 density by equation of state needs CoolProp: pip install 'logprep[co2]', "
-            "or use --co2-density-mode fixed"
+            "CO2 density by equation of state needs CoolProp, which is not installed; "
+            "pip install 'logprep[co2]', or use --co2-density-mode fixed"
         ) from None
     p, t = np.broadcast_arrays(np.asarray(pressure_pa, float), np.asarray(temperature_k, float))
     out = np.array([PropsSI("D", "P", float(pi), "T", float(ti), "CO2") for pi, ti in zip(p.ravel(), t.ravel())])

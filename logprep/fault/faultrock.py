@@ -57,9 +57,11 @@ def manzocchi_permeability_md(sgr_frac, displacement_m, *, sgr_coef=MANZOCCHI_SG
     sgr = np.asarray(sgr_frac, float)
     d = np.asarray(displacement_m, float)
     if np.any(d <= 0):
-        raise SettingsError("fault-rock permeability: displacement must be > 0 m")
+        raise SettingsError("fault-rock permeability: displacement must be > 0 m; give "
+                            "throws above 0 m (--throw-max, --field-throw-step)")
     if np.any((sgr < 0) | (sgr > 1)):
-        raise SettingsError("fault-rock permeability: SGR must be a fraction within 0-1")
+        raise SettingsError("fault-rock permeability: SGR must be a fraction within 0-1; "
+                            "pass SGR in percent divided by 100")
     return 10.0 ** (offset + sgr_coef * sgr + displacement_coef * np.log10(d) * (1.0 - sgr) ** exponent)
 
 
@@ -135,7 +137,8 @@ def transmissibility_multiplier(thickness_m, fault_perm_md, matrix_perm_md, cell
     km = np.asarray(matrix_perm_md, float)
     L = np.asarray(cell_length_m, float)
     if np.any(L <= 0) or np.any(kf <= 0) or np.any(km <= 0):
-        raise SettingsError("transmissibility: cell length and permeabilities must be > 0")
+        raise SettingsError("transmissibility: cell length and permeabilities must be > 0; "
+                            "set --cell-length and --matrix-perm above 0")
     return 1.0 / (1.0 + (tf / L) * (km - kf) / kf)
 
 

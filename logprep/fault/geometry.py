@@ -32,7 +32,8 @@ DEFAULT_FAULT_DIP_DEG = 60.0
 
 def check_fault_dip(fault_dip_deg: float) -> None:
     if not 0 < fault_dip_deg <= 90:
-        raise SettingsError(f"--fault-dip must lie within 0 (exclusive) and 90 degrees (got {fault_dip_deg:g})")
+        raise SettingsError(f"--fault-dip must lie within 0 (exclusive) and 90 degrees (got {fault_dip_deg:g}); "
+                            "give the dip from horizontal, for example 60 (fault_dip_deg in a settings file)")
 
 
 def displacement_m(throw_m, fault_dip_deg: float = DEFAULT_FAULT_DIP_DEG):
@@ -54,5 +55,6 @@ def csp_factor(fault_dip_deg: float = DEFAULT_FAULT_DIP_DEG, bed_dip_deg: float 
     """
     check_fault_dip(fault_dip_deg)
     if not 0 <= bed_dip_deg < 90:
-        raise SettingsError(f"--bed-dip must lie within 0 and 90 degrees (got {bed_dip_deg:g})")
+        raise SettingsError(f"--bed-dip must lie within 0 and 90 degrees (got {bed_dip_deg:g}); "
+                            "give the bed dip from horizontal (bed_dip_deg in a settings file)")
     return math.sin(math.radians(fault_dip_deg)) * math.cos(math.radians(bed_dip_deg)) ** 2

@@ -27,7 +27,8 @@ def parse_number_list(value, name: str) -> tuple[float, ...]:
     try:
         return tuple(float(v) for v in items)
     except (TypeError, ValueError):
-        raise SettingsError(f"{name}: expected comma-separated numbers (got {value!r})") from None
+        raise SettingsError(f"{name}: expected comma-separated numbers (got {value!r}); "
+                            "give numbers such as 3000,3500") from None
 
 
 @dataclass(frozen=True)
@@ -84,10 +85,12 @@ class FieldSettings:
         check_shale_clay_fraction(self.shale_clay_fraction)
         n = self.heterolith_reservoir_ntg
         if n is not None and not 0 < n <= 1:
-            raise SettingsError(f"--heterolith-reservoir-ntg must lie within 0 (exclusive) and 1 (got {n:g})")
+            raise SettingsError(f"--heterolith-reservoir-ntg must lie within 0 (exclusive) and 1 (got {n:g}); "
+                                "give a net-to-gross such as 0.5, or leave it out")
         check_fault_dip(self.fault_dip_deg)
         if not self.throw_max_m > 0:
-            raise SettingsError(f"--throw-max must be > 0 m (got {self.throw_max_m:g})")
+            raise SettingsError(f"--throw-max must be > 0 m (got {self.throw_max_m:g}); give the "
+                                "largest throw above 0 m (throw_max_m in a settings file)")
         if self.pair_slip_source not in SLIP_SOURCES:
             raise SettingsError(f"unknown pair slip source {self.pair_slip_source!r}; use one of "
                                 f"{', '.join(SLIP_SOURCES)}")
@@ -95,9 +98,11 @@ class FieldSettings:
             raise SettingsError(f"unknown SGR field source {self.sgr_field_source!r}; use one of "
                                 f"{', '.join(SGR_FIELD_SOURCES)}")
         if self.field_depth_step_m is not None and not self.field_depth_step_m > 0:
-            raise SettingsError(f"--field-depth-step must be > 0 m (got {self.field_depth_step_m:g})")
+            raise SettingsError(f"--field-depth-step must be > 0 m (got {self.field_depth_step_m:g}); "
+                                "give a step above 0 m, or leave it out for the log's own step")
         if not self.field_throw_step_m > 0:
-            raise SettingsError(f"--field-throw-step must be > 0 m (got {self.field_throw_step_m:g})")
+            raise SettingsError(f"--field-throw-step must be > 0 m (got {self.field_throw_step_m:g}); "
+                                "give a step above 0 m (field_throw_step_m in a settings file)")
 
 
 @dataclass(frozen=True)
@@ -177,28 +182,31 @@ class CapacitySettings:
         require_finite_fields(self)
         _check_capacity_conventions(self)
         if not 0 <= self.sgr_threshold_pct <= 100:
-            raise SettingsError(f"SGR threshold must be within 0-100 % (got {self.sgr_threshold_pct:g})")
+            raise SettingsError(f"--sgr-threshold must be within 0-100 % (got {self.sgr_threshold_pct:g}); "
+                                "give a percentage such as 20 (sgr_threshold_pct in a settings file)")
         for name in ("envelope_class_bounds_m", "envelope_class_c"):
             object.__setattr__(self, name, parse_number_list(getattr(self, name), name))
         b, c = self.envelope_class_bounds_m, self.envelope_class_c
         if list(b) != sorted(b) or len(c) != len(b) + 1:
             raise SettingsError(
                 f"--envelope-bounds must increase and --envelope-c have one more value "
-                f"(got bounds {list(b)}, C {list(c)})"
+                f"(got bounds {list(b)}, C {list(c)}); list the bounds in increasing order "
+                "and one C per class"
             )
         if not 0 <= self.sgr_leak_pct <= self.sgr_threshold_pct:
             raise SettingsError(
                 f"--sgr-leak ({self.sgr_leak_pct:g} %) must be within 0 and the SGR threshold "
-                f"({self.sgr_threshold_pct:g} %)"
+                f"({self.sgr_threshold_pct:g} %); lower --sgr-leak or raise --sgr-threshold"
             )
         if not self.envelope_sgr_scale_pct > 0:
-            raise SettingsError(f"--envelope-scale must be > 0 (got {self.envelope_sgr_scale_pct:g})")
+            raise SettingsError(f"--envelope-scale must be > 0 (got {self.envelope_sgr_scale_pct:g}); "
+                                "give a scale above 0 % SGR")
         for name in ("oil", "gas", "co2"):
             rho = getattr(self, f"{name}_density_kgm3")
             if not 0 < rho < self.brine_density_kgm3:
                 raise SettingsError(
                     f"--{name}-density {rho:g} kg/m3 must be > 0 and below the brine density "
-                    f"{self.brine_density_kgm3:g} kg/m3"
+                    f"{self.brine_density_kgm3:g} kg/m3; give a density between 0 and the brine's"
                 )
         if self.co2_density_mode not in CO2_DENSITY_MODES:
             raise SettingsError(
@@ -207,16 +215,20 @@ class CapacitySettings:
         if self.length_unit not in LENGTH_UNITS:
             raise SettingsError(f"unknown length unit {self.length_unit!r}; use one of {', '.join(LENGTH_UNITS)}")
         if self.max_burial_m is not None and not self.max_burial_m >= 0:
-            raise SettingsError(f"max_burial_m must be >= 0 m (got {self.max_burial_m:g})")
+            raise SettingsError(f"--max-burial must be >= 0 m (got {self.max_burial_m:g}); give "
+                                "the deepest burial as 0 m or more (max_burial_m in a settings file)")
 
 
 def _check_capacity_conventions(self) -> None:
     if self.water_depth_m is not None and self.ground_elevation_m is not None:
-        raise SettingsError("give --water-depth (offshore) or --ground-elevation (onshore), not both")
+        raise SettingsError("--water-depth and --ground-elevation both given; give --water-depth "
+                            "(offshore) or --ground-elevation (onshore), not both")
     if self.water_depth_m is not None and not self.water_depth_m >= 0:
-        raise SettingsError(f"--water-depth must be >= 0 m (got {self.water_depth_m:g})")
+        raise SettingsError(f"--water-depth must be >= 0 m (got {self.water_depth_m:g}); give "
+                            "the water depth as 0 m or more, or --ground-elevation onshore")
     if not self.uplift_m >= 0:
-        raise SettingsError(f"--uplift must be >= 0 m (got {self.uplift_m:g})")
+        raise SettingsError(f"--uplift must be >= 0 m (got {self.uplift_m:g}); give the uplift "
+                            "as 0 m or more (uplift_m in a settings file)")
     check_closure(self.closure_m, self.unconstrained_column_m)
     co2_pressure_factor(self.calibration_ift_mn_m, self.calibration_contact_deg,
                         self.co2_ift_mn_m, self.co2_contact_deg)
@@ -245,9 +257,11 @@ class FaultRockSettings:
         require_finite_fields(self)
         for name in ("cell_length_m", "matrix_perm_md"):
             if not getattr(self, name) > 0:
-                raise SettingsError(f"{name} must be > 0 (got {getattr(self, name):g})")
+                raise SettingsError(f"{name} must be > 0 (got {getattr(self, name):g}); set "
+                                    "--cell-length and --matrix-perm above 0")
         if self.faulting_depth_m is not None and not self.faulting_depth_m >= 0:
-            raise SettingsError(f"faulting_depth_m must be >= 0 m (got {self.faulting_depth_m:g})")
+            raise SettingsError(f"--faulting-depth must be >= 0 m (got {self.faulting_depth_m:g}); "
+                                "give 0 m or more, or leave it out to use the burial depth")
 
 
 def capacity_params(capacity: CapacitySettings, fault_rock: FaultRockSettings,

@@ -134,7 +134,8 @@ def throw_axis_m(throw_max_m: float, throw_step_m: float, throw_min_m: float = 0
     """Throws ``throw_min_m, ..., throw_max_m`` in steps of ``throw_step_m`` (the last step
     may be shorter so that ``throw_max_m`` is included)."""
     if not throw_step_m > 0:
-        raise SettingsError(f"throw step must be > 0 m (got {throw_step_m:g})")
+        raise SettingsError(f"throw step must be > 0 m (got {throw_step_m:g}); give "
+                            "--field-throw-step a step above 0 m")
     n = int(np.floor((throw_max_m - throw_min_m) / throw_step_m + 1e-9))
     t = throw_min_m + throw_step_m * np.arange(n + 1)
     if t[-1] < throw_max_m - 1e-9:

@@ -104,20 +104,24 @@ class Spreads:
             w = tuple(w.items())
         object.__setattr__(self, "transform_weights", tuple((str(k), float(v)) for k, v in w))
         if not isinstance(self.realisations, int) or not 1 <= self.realisations <= 1_000_000:
-            raise SettingsError(f"uncertainty realisations must be a whole number 1-1000000 (got {self.realisations!r})")
+            raise SettingsError(f"uncertainty realisations must be a whole number 1-1000000 (got {self.realisations!r}); "
+                                "give --realisations a whole number such as 1000")
         if not isinstance(self.random_state, int) or self.random_state < 0:
-            raise SettingsError(f"uncertainty random_state must be a whole number >= 0 (got {self.random_state!r})")
+            raise SettingsError(f"uncertainty random_state must be a whole number >= 0 (got {self.random_state!r}); "
+                                "give --random-state a whole number such as 0")
         for f in fields(self):
             v = getattr(self, f.name)
             if f.name.endswith(("_spread", "_spread_pct", "_spread_api", "_spread_m", "_frac")) \
                     and not (isinstance(v, (int, float)) and math.isfinite(v) and v >= 0):
-                raise SettingsError(f"uncertainty {f.name} must be a finite number >= 0 (got {v!r})")
+                raise SettingsError(f"uncertainty {f.name} must be a finite number >= 0 (got {v!r}); "
+                                    f"give {f.name} 0 or more in the [uncertainty] table")
         if not self.transform_weights or any(not (math.isfinite(x) and x >= 0) for _, x in self.transform_weights) \
                 or sum(x for _, x in self.transform_weights) <= 0:
-            raise SettingsError("uncertainty transform_weights: give non-negative weights, not all zero "
-                                "(for example linear = 1, stieber = 1)")
+            raise SettingsError("uncertainty transform_weights: weights must be >= 0 and not all zero; give "
+                                "non-negative weights (for example linear = 1, stieber = 1)")
         if self.min_bed_spread_frac > 1:
-            raise SettingsError(f"uncertainty min_bed_spread_frac must be within 0-1 (got {self.min_bed_spread_frac:g})")
+            raise SettingsError(f"uncertainty min_bed_spread_frac must be within 0-1 (got {self.min_bed_spread_frac:g}); "
+                                "give a fraction such as 0.25 in the [uncertainty] table")
 
     @classmethod
     def zero(cls, transform: str, **kw) -> Spreads:
@@ -140,16 +144,19 @@ def spreads_from_dict(data: dict, source: str = "settings") -> Spreads:
             raise SettingsError(f"{source}: unknown key [uncertainty] {key!r}; valid keys: {', '.join(names)}")
         if key == "transform_weights":
             if not isinstance(value, dict):
-                raise SettingsError(f"{source}: [uncertainty] transform_weights must be a table "
-                                    "(transform = weight)")
+                raise SettingsError(f"{source}: [uncertainty] transform_weights must be a table; write it "
+                                    "as [uncertainty.transform_weights] with transform = weight lines")
         elif key in ("realisations", "random_state"):
             if not isinstance(value, int) or isinstance(value, bool):
-                raise SettingsError(f"{source}: [uncertainty] {key} must be a whole number")
+                raise SettingsError(f"{source}: [uncertainty] {key} must be a whole number; write it "
+                                    "without a decimal point or quotes (for example 1000)")
         elif key == "draw_throw":
             if not isinstance(value, bool):
-                raise SettingsError(f"{source}: [uncertainty] draw_throw must be true or false")
+                raise SettingsError(f"{source}: [uncertainty] draw_throw must be true or false; write "
+                                    "draw_throw = true or draw_throw = false (no quotes)")
         elif not isinstance(value, (int, float)) or isinstance(value, bool):
-            raise SettingsError(f"{source}: [uncertainty] {key} must be a number")
+            raise SettingsError(f"{source}: [uncertainty] {key} must be a number; write a number "
+                                f"without quotes (for example {key} = 0.1)")
         kw[key] = value
     try:
         return Spreads(**kw)
@@ -179,7 +186,8 @@ def draw_throw_m(u, dist: str, best_m: float, low_m: float | None, high_m: float
         left = lo + np.sqrt(u * (hi - lo) * (mode - lo))
         right = hi - np.sqrt((1.0 - u) * (hi - lo) * (hi - mode))
         return np.where(u < fc, left, right)
-    raise SettingsError(f"unknown throw distribution {dist!r}")
+    raise SettingsError(f"unknown throw distribution {dist!r}; use one of fixed, uniform, "
+                        "triangular, normal in the throw_dist column")
 
 
 @dataclass(frozen=True)

@@ -46,22 +46,27 @@ def parse_number(text: str) -> float:
     return float(str(text).strip().replace(",", "."))
 
 
-def read_csv_table(path: str | Path, error: type[LogprepError], what: str, **kwargs) -> pd.DataFrame:
+def read_csv_table(path: str | Path, error: type[LogprepError], what: str, option: str = "",
+                   **kwargs) -> pd.DataFrame:
     """Read a small CSV table (see the module notes) with :func:`pandas.read_csv`.
 
     ``what`` names the table in messages (``"tops CSV"``); any problem raises ``error``
-    naming the file.  ``kwargs`` go to :func:`pandas.read_csv`.
+    naming the file and, in its fix, ``option`` (the option that names the file).
+    ``kwargs`` go to :func:`pandas.read_csv`.
     """
     path = Path(path)
+    given = f" given to {option}" if option else ""
     try:
         raw = path.read_bytes()
     except FileNotFoundError:
-        raise error(f"{path}: {what} not found") from None
+        raise error(f"{path}: {what} not found; check the path{given}") from None
     except OSError as exc:
-        raise error(f"{path}: cannot read the {what} ({exc.strerror or exc})") from None
+        raise error(f"{path}: cannot read the {what} ({exc.strerror or exc}); make it "
+                    f"readable or copy it elsewhere and give that path{given}") from None
     text = decode_text(raw)
     if not text.strip():
-        raise error(f"{path}: the {what} is empty")
+        raise error(f"{path}: the {what} is empty; write a header line and one "
+                    f"row per entry, or leave out{given or ' the file'}")
     sep = header_separator(text, kwargs.get("comment"))
     if sep == ";":
         kwargs.setdefault("decimal", ",")
@@ -69,4 +74,5 @@ def read_csv_table(path: str | Path, error: type[LogprepError], what: str, **kwa
         return pd.read_csv(io.StringIO(text), sep=sep, skipinitialspace=True, **kwargs)
     except (ValueError, pd.errors.ParserError) as exc:
         reason = str(exc).strip().splitlines()[0] if str(exc).strip() else type(exc).__name__
-        raise error(f"{path}: not a readable {what} ({reason})") from None
+        raise error(f"{path}: not a readable {what} ({reason}); save it as a plain "
+                    "text table with one header line and the same number of cells per row") from None

@@ -71,7 +71,7 @@ def read_descriptions(path: str | Path) -> pd.DataFrame:
     """Read a description CSV into :data:`DESCRIPTION_COLUMNS` (``well`` blank when the
     file has no well column), sorted by well and top."""
     path = Path(path)
-    df = read_csv_table(path, DescriptionError, "description CSV")
+    df = read_csv_table(path, DescriptionError, "description CSV", "--rock")
     df.columns = [str(c).strip().lower() for c in df.columns]
     factor = 1.0
     if "top_m" not in df.columns and {"top_ft", "base_ft"} <= set(df.columns):
@@ -85,10 +85,12 @@ def read_descriptions(path: str | Path) -> pd.DataFrame:
         df[c] = pd.to_numeric(df[c], errors="coerce") * factor
         if df[c].isna().any():
             line = int(df.index[df[c].isna()][0]) + 2
-            raise DescriptionError(f"{path}: line {line}: {c} is not a number")
+            raise DescriptionError(f"{path}: line {line}: {c} is not a number; write "
+                                   "depths as plain numbers in the depth unit of the file")
     bad = df.index[df["base_m"] <= df["top_m"]]
     if len(bad):
-        raise DescriptionError(f"{path}: line {int(bad[0]) + 2}: base_m must be below top_m")
+        raise DescriptionError(f"{path}: line {int(bad[0]) + 2}: base_m must be below top_m; "
+                               "swap the two depths or fix the row")
     df["well"] = df["well"].astype(str).str.strip() if "well" in df.columns else ""
     df["lithology"] = df["lithology"].astype(str).str.strip()
     df["group"] = df["lithology"].map(group_of)

@@ -138,13 +138,15 @@ def fault_from_row(row: dict, where: str) -> FaultSpec:
         raise FaultsError(f"{where}, column {missing}: missing; give both throw_low_m and throw_high_m or neither")
     if low is not None and not 0 <= low <= throw <= high:
         raise FaultsError(f"{where}, columns throw_low_m/throw_high_m: need 0 <= low <= throw_m <= high "
-                          f"(got {low:g}, {throw:g}, {high:g} m)")
+                          f"(got {low:g}, {throw:g}, {high:g} m); put throw_m between the two")
     if dist not in THROW_DISTRIBUTIONS:
         raise FaultsError(f"{where}, column throw_dist: unknown {dist!r}; use one of {', '.join(THROW_DISTRIBUTIONS)}")
     if dist != "fixed" and low is None:
-        raise FaultsError(f"{where}, column throw_dist: {dist} needs throw_low_m and throw_high_m")
+        raise FaultsError(f"{where}, column throw_dist: {dist} needs throw_low_m and "
+                          "throw_high_m; give both, or write fixed")
     if dist == "normal" and not low < high:
-        raise FaultsError(f"{where}, columns throw_low_m/throw_high_m: a normal throw needs low < high")
+        raise FaultsError(f"{where}, columns throw_low_m/throw_high_m: a normal throw needs "
+                          "low < high; widen the range or write throw_dist fixed")
     if dip is None:
         dip = DEFAULT_FAULT_DIP_DEG
     if not 0 < dip <= 90:
@@ -165,7 +167,7 @@ def fault_from_row(row: dict, where: str) -> FaultSpec:
 
 
 def _rows_csv(path: Path) -> list[tuple[dict, str]]:
-    df = read_csv_table(path, FaultsError, "faults file", dtype=str, keep_default_na=False,
+    df = read_csv_table(path, FaultsError, "faults file", "--faults", dtype=str, keep_default_na=False,
                         comment="#")
     df.columns = [str(c).strip().lower() for c in df.columns]
     df = df.loc[:, [c for c in df.columns if c and not c.startswith("unnamed:")]]
@@ -177,13 +179,15 @@ def _rows_toml(path: Path) -> list[tuple[dict, str]]:
     try:
         data = tomllib.loads(path.read_text(encoding="utf-8-sig"))
     except (OSError, UnicodeDecodeError) as exc:
-        raise FaultsError(f"{path}: cannot read the faults file ({exc})") from None
+        raise FaultsError(f"{path}: cannot read the faults file ({exc}); save it as UTF-8 "
+                          "text and check the path given to --faults") from None
     except tomllib.TOMLDecodeError as exc:
         raise FaultsError(f"{path}: not valid TOML ({exc}); write one [[fault]] table per fault") from None
     extra = [k for k in data if k != "fault"]
     faults = data.get("fault")
     if extra or not isinstance(faults, list) or not all(isinstance(f, dict) for f in faults):
-        raise FaultsError(f"{path}: expected only [[fault]] tables (found {', '.join(data) or 'nothing'})")
+        raise FaultsError(f"{path}: expected only [[fault]] tables (found {', '.join(data) or 'nothing'}); "
+                          "write one [[fault]] table per fault and nothing else")
     return [(f, f"{path}: [[fault]] {k}") for k, f in enumerate(faults, start=1)]
 
 

@@ -126,14 +126,14 @@ def las_header_location(path: str | Path) -> Location | None:
 def read_locations(path: str | Path) -> dict[str, Location]:
     """A locations file as ``{well name: Location}`` (see the module notes)."""
     path = Path(path)
-    df = read_csv_table(path, LocationsError, "locations CSV", dtype=str, keep_default_na=False)
+    df = read_csv_table(path, LocationsError, "locations CSV", "--locations", dtype=str, keep_default_na=False)
     cols = {str(c).strip().lower(): c for c in df.columns}
     pairs = [("x", "y", GRID), ("easting", "northing", GRID),
              ("longitude", "latitude", GEOGRAPHIC), ("lon", "lat", GEOGRAPHIC)]
     found = next(((a, b, kind) for a, b, kind in pairs if a in cols and b in cols), None)
     if "well" not in cols or found is None:
         raise LocationsError(f"{path}: needs columns well and x, y (or latitude, longitude); "
-                             f"found {', '.join(map(str, df.columns))}")
+                             f"found {', '.join(map(str, df.columns))}; name the columns so in the header line")
     xcol, ycol, kind = found
     out: dict[str, Location] = {}
     for k, row in enumerate(df.itertuples(index=False), start=2):
@@ -150,7 +150,7 @@ def read_locations(path: str | Path) -> dict[str, Location]:
                 x, y = parse_number(rec[cols[xcol]]), parse_number(rec[cols[ycol]])
         except ValueError:
             raise LocationsError(f"{path}: line {k}: {xcol}/{ycol} of {name!r} are not "
-                                 "coordinates") from None
+                                 "coordinates; write numbers (or degrees within +-90/+-180)") from None
         out[name] = Location(x, y, kind, f"locations file {path.name}")
     return out
 

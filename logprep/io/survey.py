@@ -48,26 +48,30 @@ class SurveyError(LogprepError, ValueError):
 def read_survey(path: str | Path) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
     """``(md_m, inc_deg, azi_deg)`` from a survey CSV (see the module notes)."""
     path = Path(path)
-    df = read_csv_table(path, SurveyError, "survey CSV", comment="#")
+    df = read_csv_table(path, SurveyError, "survey CSV", "--survey-dir", comment="#")
     cols = {str(c).strip().lower(): c for c in df.columns}
     md_col = next((c for c in _MD if c in cols), None)
     inc_col = next((c for c in _INC if c in cols), None)
     azi_col = next((c for c in _AZI if c in cols), None)
     if md_col is None or inc_col is None or azi_col is None:
         raise SurveyError(f"{path}: needs columns md_m (or md_ft), inc_deg and azi_deg; "
-                          f"found {', '.join(map(str, df.columns))}")
+                          f"found {', '.join(map(str, df.columns))}; name the columns so in the header line")
     try:
         md = df[cols[md_col]].astype(float).to_numpy() * _MD[md_col]
         inc = df[cols[inc_col]].astype(float).to_numpy()
         azi = df[cols[azi_col]].astype(float).to_numpy()
     except ValueError:
-        raise SurveyError(f"{path}: a survey value is not a number") from None
+        raise SurveyError(f"{path}: a survey value is not a number; write md, inc and "
+                          "azi as plain numbers in every row") from None
     if md.size < 2 or not np.isfinite(np.stack([md, inc, azi])).all():
-        raise SurveyError(f"{path}: needs at least two complete stations")
+        raise SurveyError(f"{path}: needs at least two complete stations; give two or "
+                          "more rows with md, inc and azi all filled in")
     if np.any(np.diff(md) <= 0):
-        raise SurveyError(f"{path}: measured depth must increase from station to station")
+        raise SurveyError(f"{path}: measured depth must increase from station to station; "
+                          "sort the rows by depth and remove repeated stations")
     if np.any((inc < 0) | (inc > 180)):
-        raise SurveyError(f"{path}: inclination must lie within 0-180 degrees")
+        raise SurveyError(f"{path}: inclination must lie within 0-180 degrees; give "
+                          "inc_deg in degrees from vertical")
     return md, inc, np.mod(azi, 360.0)
 
 
@@ -135,8 +139,8 @@ def check_survey_dir(survey_dir: str | Path) -> Path:
     folder = Path(survey_dir)
     if not folder.is_dir():
         what = "is a file, not a folder" if folder.exists() else "not found"
-        raise SurveyError(f"{folder}: survey folder {what} (--survey-dir names a folder of "
-                          "<well>.csv surveys)")
+        raise SurveyError(f"{folder}: survey folder {what}; give --survey-dir a folder of "
+                          "<well>.csv surveys")
     return folder
 
 
@@ -169,7 +173,8 @@ def unmatched_survey_warnings(survey_dir: str | Path, names) -> list[str]:
 
 def _check_dip(bed_dip_deg: float) -> None:
     if not 0 <= bed_dip_deg < 90:
-        raise SurveyError(f"bed dip must lie within 0 and 90 degrees (got {bed_dip_deg:g})")
+        raise SurveyError(f"bed dip must lie within 0 and 90 degrees (got {bed_dip_deg:g}); "
+                          "give --bed-dip from horizontal")
 
 
 def true_stratigraphic_thickness_m(tvt_m, bed_dip_deg: float):

@@ -42,7 +42,8 @@ def _markers_file(path: Path) -> pd.DataFrame:
         try:
             depth = float(parts[0])
         except (ValueError, IndexError):
-            raise TopsError(f"{path}: line {k}: expected 'depth<TAB>name', got {line!r}") from None
+            raise TopsError(f"{path}: line {k}: expected 'depth<TAB>name', got {line!r}; "
+                            "write one depth and one name per line") from None
         rows.append((well, depth, parts[1].strip() if len(parts) > 1 else ""))
     return pd.DataFrame(rows, columns=TOPS_COLUMNS)
 
@@ -53,13 +54,14 @@ def read_tops(path: str | Path) -> pd.DataFrame:
     if path.is_dir():
         files = sorted(p for p in path.iterdir() if p.suffix.lower() in {".txt", ".csv"})
         if not files:
-            raise TopsError(f"{path}: no tops files (.csv or .txt) in the folder")
+            raise TopsError(f"{path}: no tops files (.csv or .txt) in the folder; put the "
+                            "tops files there or give --tops one file")
         frames = [read_tops(p) for p in files]
         return _tidy(pd.concat(frames, ignore_index=True))
     if not path.is_file():
-        raise TopsError(f"{path}: tops file not found")
+        raise TopsError(f"{path}: tops file not found; check the path given to --tops")
     if path.suffix.lower() == ".csv":
-        df = read_csv_table(path, TopsError, "tops CSV")
+        df = read_csv_table(path, TopsError, "tops CSV", "--tops")
         df.columns = [str(c).strip().lower() for c in df.columns]
         missing = [c for c in TOPS_COLUMNS if c not in df.columns]
         if missing:
@@ -70,7 +72,8 @@ def read_tops(path: str | Path) -> pd.DataFrame:
         df["top_m"] = pd.to_numeric(df["top_m"], errors="coerce")
         if df["top_m"].isna().any():
             bad = int(df.index[df["top_m"].isna()][0]) + 2
-            raise TopsError(f"{path}: line {bad}: top_m is not a number")
+            raise TopsError(f"{path}: line {bad}: top_m is not a number; write the top "
+                            "depth in metres as a plain number")
         df["well"] = df["well"].astype(str).str.strip()
         df["name"] = df["name"].astype(str).str.strip()
         return _tidy(df)

@@ -45,7 +45,8 @@ def classify_vsh(vsh, sand_cutoff: float, shale_cutoff: float) -> np.ndarray:
 def check_cutoffs(sand_cutoff: float, shale_cutoff: float) -> None:
     if not (0.0 <= sand_cutoff < shale_cutoff <= 1.0):
         raise SettingsError(
-            f"cut-offs must satisfy 0 <= sand ({sand_cutoff:g}) < shale ({shale_cutoff:g}) <= 1"
+            f"cut-offs must satisfy 0 <= sand ({sand_cutoff:g}) < shale ({shale_cutoff:g}) <= 1; "
+            "set --sand-cutoff below --shale-cutoff, both within 0-1"
         )
 
 
@@ -83,17 +84,20 @@ def _check_block_input(depth_m, vsh, filled, sand_cutoff, shale_cutoff, min_bed_
     """Validated ``(depth, vsh, filled, sample edges)`` for a blocking method."""
     check_cutoffs(sand_cutoff, shale_cutoff)
     if not min_bed_m >= 0:
-        raise SettingsError(f"minimum bed thickness must be >= 0 m (got {min_bed_m:g})")
+        raise SettingsError(f"minimum bed thickness must be >= 0 m (got {min_bed_m:g}); give "
+                            "--min-bed 0 m or more")
     d = np.asarray(depth_m, dtype=float)
     v = np.asarray(vsh, dtype=float)
     if d.size == 0 or d.size != v.size:
-        raise SettingsError("blocking needs equal, non-empty depth and Vsh arrays")
+        raise SettingsError("blocking needs equal, non-empty depth and Vsh arrays; pass one Vsh "
+                            "value per depth sample")
     if not np.all(np.isfinite(v)):
         raise SettingsError("blocking needs finite Vsh; fill or trim missing samples first")
     f = np.zeros(d.size, dtype=bool) if filled is None else np.asarray(filled, dtype=bool)
     edges = sample_edges_m(d) if edges_m is None else np.asarray(edges_m, dtype=float)
     if edges.size != d.size + 1:
-        raise SettingsError("blocking: edges_m needs one more entry than depth_m")
+        raise SettingsError("blocking: edges_m needs one more entry than depth_m; pass the "
+                            "sample edges (sample_edges_m) or leave edges_m out")
     return d, v, f, edges
 
 
@@ -314,7 +318,8 @@ def block_changepoint(
         depth_m, vsh, filled, sand_cutoff, shale_cutoff, min_bed_m, edges_m
     )
     if not changepoint_penalty >= 0:
-        raise SettingsError(f"changepoint penalty must be >= 0 (got {changepoint_penalty:g})")
+        raise SettingsError(f"changepoint penalty must be >= 0 (got {changepoint_penalty:g}); "
+                            "give --changepoint-penalty 0 or more")
     step = float(np.median(np.diff(d))) if d.size > 1 else 1.0
     min_size = max(1, int(np.ceil(min_bed_m / step - 1e-9)))
     penalty = changepoint_penalty * noise_sd(v) ** 2 * np.log(max(v.size, 2))

@@ -62,16 +62,20 @@ class LayerSettings:
         object.__setattr__(self, "reservoir_classes", parse_classes(self.reservoir_classes))
         require_finite_fields(self)
         if not 0 <= self.max_unusable < 1:
-            raise SettingsError(f"--max-unusable must be within 0 and 1 (got {self.max_unusable:g})")
+            raise SettingsError(f"--max-unusable must be within 0 and 1 (got {self.max_unusable:g}); "
+                                "give a fraction below 1 (max_unusable in a settings file)")
         if not self.thin_bed_m >= 0:
-            raise SettingsError(f"--thin-bed must be >= 0 m (got {self.thin_bed_m:g})")
+            raise SettingsError(f"--thin-bed must be >= 0 m (got {self.thin_bed_m:g}); give a "
+                                "thickness of 0 m or more (thin_bed_m in a settings file)")
         get_blocking_method(self.blocking)
         check_cutoffs(self.sand_cutoff, self.shale_cutoff)
         if not self.min_bed_m >= 0:
-            raise SettingsError(f"--min-bed must be >= 0 m (got {self.min_bed_m:g})")
+            raise SettingsError(f"--min-bed must be >= 0 m (got {self.min_bed_m:g}); give a "
+                                "thickness of 0 m or more (min_bed_m in a settings file)")
         if not self.changepoint_penalty >= 0:
             raise SettingsError(
-                f"--changepoint-penalty must be >= 0 (got {self.changepoint_penalty:g})")
+                f"--changepoint-penalty must be >= 0 (got {self.changepoint_penalty:g}); "
+                "give 0 or more (changepoint_penalty in a settings file)")
 
     def blocking_kwargs(self) -> dict:
         """The keyword arguments every blocking method receives."""

@@ -9,6 +9,7 @@ page can never reach out to a network, whatever a well name holds.
 from __future__ import annotations
 
 import datetime as _dt
+import os
 import html
 from urllib.parse import quote
 
@@ -260,6 +261,17 @@ def _options(values) -> str:
     return "".join(f'<option value="{_e(v)}">{_e(v)}</option>' for v in values)
 
 
+
+def _written_stamp() -> str:
+    """``", written YYYY-MM-DD HH:MM UTC"`` from ``SOURCE_DATE_EPOCH`` when it is set, else
+    ``""``: a page that carries the wall-clock time would differ between two runs of the same
+    inputs (the batch promises byte-identical outputs; the file's own time says when)."""
+    epoch = os.environ.get("SOURCE_DATE_EPOCH", "").strip()
+    if not epoch.isdigit():
+        return ""
+    when = _dt.datetime.fromtimestamp(int(epoch), tz=_dt.UTC)
+    return f", written {when:%Y-%m-%d %H:%M} UTC"
+
 def overview_html(rows: list[OverviewRow], verdict_rule: str = "", title: str = "Field overview") -> str:
     """The whole page as text."""
     n_well = sum(r.kind == "well" for r in rows)
@@ -271,14 +283,14 @@ def overview_html(rows: list[OverviewRow], verdict_rule: str = "", title: str = 
     body = "\n".join(_row_html(r) for r in rows)
     fails = ("<h2>Failed</h2><ul>" + "".join(f'<li class="err"><b>{_e(r.name)}</b>: {_e(r.message)}</li>'
                                               for r in failed) + "</ul>") if failed else ""
-    stamp = _dt.datetime.now().strftime("%Y-%m-%d %H:%M")
+    stamp = _written_stamp()
     return f"""<!DOCTYPE html>
 <html lang="en"><head><meta charset="utf-8">
 <meta http-equiv="Content-Security-Policy" content="default-src 'none'; script-src 'unsafe-inline'; style-src 'unsafe-inline'; img-src data:">
 <meta name="viewport" content="width=device-width, initial-scale=1">
 <title>{_e(title)}</title><style>{_CSS}</style></head><body>
 <h1>{_e(title)}: {n_well} well(s), {n_pair} pair(s), {len(failed)} failed</h1>
-<p class="sub">logprep {_e(__version__)}, written {stamp}. {_e(verdict_rule)}{'.' if verdict_rule else ''}
+<p class="sub">logprep {_e(__version__)}{stamp}. {_e(verdict_rule)}{'.' if verdict_rule else ''}
 Click a column head to sort; the complete tables are in each folder and in summary.csv.</p>
 <p class="caution"><b>CAUTION:</b> {_e(CAUTION)}</p>
 <div class="top"><div>{svg or '<p>' + _e(map_note) + '</p>'}

@@ -61,7 +61,8 @@ def write_bytes_atomic(path: Path, data: bytes) -> None:
             Path(tmp).unlink(missing_ok=True)
             raise
     except OSError as exc:
-        raise OutputError(f"{path}: cannot write ({exc.strerror or exc})") from exc
+        raise OutputError(f"{path}: cannot write ({exc.strerror or exc}); check the space "
+                          "and permissions of the output folder, or give another --out") from exc
 
 
 def prepare_out_dir(out_dir: str | Path) -> Path:

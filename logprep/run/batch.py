@@ -78,9 +78,11 @@ def screen_one(path: Path, folder: str, out_dir: Path, settings: ScreenSettings,
 
     Whatever goes wrong becomes a row with ``status`` ``error`` and a one-line message
     naming the file (see :func:`logprep.run.contain.contained_screen`); nothing is written
-    for that file.  ``time_limit_s`` bounds the well's time.
+    for that file.  ``time_limit_s`` bounds the well's time (None: the setting
+    ``well_time_limit_s``).
     """
-    outcome = screen_well_task(settings, tops, OutputOptions(sheets=sheets, time_limit_s=time_limit_s),
+    limit = settings.input.well_time_limit_s if time_limit_s is None else time_limit_s
+    outcome = screen_well_task(settings, tops, OutputOptions(sheets=sheets, time_limit_s=limit),
                                (faults, spreads),
                                str(path), readable_path(path), folder)
     if outcome.files is not None:
@@ -88,12 +90,18 @@ def screen_one(path: Path, folder: str, out_dir: Path, settings: ScreenSettings,
     return outcome.row
 
 
+RUN_ONLY_FIELDS = ("well_time_limit_s",)
+"""Settings that bound a run but never change a well's results (left out of the hash)."""
+
+
 def run_settings_sha256(settings: ScreenSettings, options: OutputOptions, faults=None,
                         spreads=None) -> str:
     """The hash that decides whether a well's results are still those of this run: the
     settings, the output options, the logprep version and the bytes of the tops and
-    survey files."""
-    return settings_sha256(settings.to_dict(), {
+    survey files (not the settings that bound the run, :data:`RUN_ONLY_FIELDS`)."""
+    groups = settings.to_dict()
+    groups["input"] = {k: v for k, v in groups["input"].items() if k not in RUN_ONLY_FIELDS}
+    return settings_sha256(groups, {
         "logprep": __version__, "outputs": options.to_dict(),
         "tops": tree_sha256(settings.input.tops_file), "surveys": tree_sha256(settings.input.survey_dir),
         "fault_work": _pickle_sha256((faults, spreads)) if faults or spreads else ""})
@@ -144,7 +152,8 @@ def screen_paths(
     Any failure of one file is recorded (and passed to ``on_error``) and the batch goes on;
     an unexpected exception (a bug) also appends its traceback to
     ``logprep-internal-errors.log`` in ``out_dir`` and counts in
-    :attr:`BatchReport.internal_errors`; ``time_limit_s`` bounds each well's time.  Paths
+    :attr:`BatchReport.internal_errors`; ``time_limit_s`` bounds each well's time (None:
+    the setting ``well_time_limit_s``).  Paths
     passed over while scanning are in :attr:`BatchReport.scan_skipped`.  ``jobs`` > 1 screens wells
     in that many worker processes, ``backend`` on a Dask cluster (results are the same);
     ``sheets=False`` skips the PDF/PNG sheets, ``field=False`` the SGR field file and
@@ -165,8 +174,6 @@ def screen_paths(
         raise LogprepError(f"no .las files found in {', '.join(map(str, paths))}"
                            + (f" ({scan.summary_line()})" if scan.skipped else "")
                            + "; name LAS files or folders that hold them")
-    if jobs < 1:
-        raise LogprepError(f"--jobs must be 1 or more (got {jobs})")
     if overview and locations is not None:
         from logprep.io.locations import read_locations
 
@@ -177,7 +184,8 @@ def screen_paths(
     tops = read_tops(settings.input.tops_file) if settings.input.tops_file else None
     if settings.input.survey_dir:
         check_survey_dir(settings.input.survey_dir)
-    options = OutputOptions(sheets=sheets, field=field, field_smear=field_smear, time_limit_s=time_limit_s)
+    limit = settings.input.well_time_limit_s if time_limit_s is None else time_limit_s
+    options = OutputOptions(sheets=sheets, field=field, field_smear=field_smear, time_limit_s=limit)
     run_sha = run_settings_sha256(settings, options, faults, spreads)
     taken: set[str] = set()
     folders = [well_folder_name(f, taken) for f in files]

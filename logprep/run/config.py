@@ -83,7 +83,8 @@ def _flatten_groups(data: dict, source: str):
         if key in GROUPS and isinstance(value, dict):
             for k, v in value.items():
                 if k in FIELD_GROUP and FIELD_GROUP[k] != key:
-                    raise ConfigError(f"{source}: [{key}] {k} belongs in the [{FIELD_GROUP[k]}] table")
+                    raise ConfigError(f"{source}: [{key}] {k} belongs in the [{FIELD_GROUP[k]}] table; "
+                                      "move the line there")
                 if k not in FIELD_GROUP:
                     valid = [f for f, g in FIELD_GROUP.items() if g == key]
                     near = difflib.get_close_matches(k, valid, n=1)
@@ -91,12 +92,14 @@ def _flatten_groups(data: dict, source: str):
                         f"{source}: unknown key [{key}] {k!r}; valid keys there: {', '.join(valid)}"
                         + (f"; did you mean {near[0]!r}?" if near else ""))
                 if k in seen:
-                    raise ConfigError(f"{source}: {k} is given twice ({seen[k]} and [{key}])")
+                    raise ConfigError(f"{source}: {k} is given twice ({seen[k]} and [{key}]); keep "
+                                      "one of them")
                 seen[k] = f"[{key}]"
                 yield k, v
         else:
             if key in seen:
-                raise ConfigError(f"{source}: {key} is given twice ({seen[key]} and at the top level)")
+                raise ConfigError(f"{source}: {key} is given twice ({seen[key]} and at the top "
+                              "level); keep one of them")
             seen[key] = "the top level"
             yield key, value
 
@@ -120,7 +123,8 @@ def parse_settings_dict(data: dict, source: str = "settings") -> tuple[dict, dic
                 if not (isinstance(v, str) or (isinstance(v, list) and all(
                         isinstance(x, (int, float)) and not isinstance(x, bool) for x in v))):
                     raise ConfigError(
-                        f"{source}: [tune] {k} must be a list of numbers or 'start:stop:step'")
+                        f"{source}: [tune] {k} must be a list of numbers or 'start:stop:step'; "
+                        "write for example [0.2, 0.3] or '0.2:0.4:0.05'")
                 tune[k] = v
             continue
         if key not in types_:
@@ -131,7 +135,8 @@ def parse_settings_dict(data: dict, source: str = "settings") -> tuple[dict, dic
                 f"{', '.join(types_)})" + (f"; did you mean {near[0]!r}?" if near else ""))
         hint = types_[key]
         if not _accepts(hint, value):
-            raise ConfigError(f"{source}: {key} = {value!r} is not a {_type_name(hint)}")
+            raise ConfigError(f"{source}: {key} = {value!r} is not a {_type_name(hint)}; "
+                              f"write {key} as a {_type_name(hint)}")
         settings[key] = tuple(value) if isinstance(value, list) else value
     return settings, tune
 
@@ -142,11 +147,13 @@ def read_config(path: str | Path) -> tuple[dict, dict]:
     try:
         data = tomllib.loads(path.read_text(encoding="utf-8"))
     except FileNotFoundError:
-        raise ConfigError(f"{path}: settings file not found") from None
+        raise ConfigError(f"{path}: settings file not found; check the path given to --config") from None
     except (OSError, UnicodeDecodeError) as exc:
-        raise ConfigError(f"{path}: cannot read ({exc})") from None
+        raise ConfigError(f"{path}: cannot read ({exc}); save the settings file as UTF-8 text "
+                          "and check the path given to --config") from None
     except tomllib.TOMLDecodeError as exc:
-        raise ConfigError(f"{path}: not valid TOML ({exc})") from None
+        raise ConfigError(f"{path}: not valid TOML ({exc}); fix that line (key = value, "
+                          "strings in quotes), or write a fresh file with logprep's own settings output") from None
     settings, tune = parse_settings_dict(data, str(path))
     for key in PATH_KEYS:
         if isinstance(settings.get(key), str) and not Path(settings[key]).is_absolute():
@@ -165,10 +172,12 @@ def read_uncertainty(path: str | Path | None):
     try:
         data = tomllib.loads(path.read_text(encoding="utf-8"))
     except (OSError, UnicodeDecodeError, tomllib.TOMLDecodeError) as exc:
-        raise ConfigError(f"{path}: cannot read the settings file ({exc})") from None
+        raise ConfigError(f"{path}: cannot read the settings file ({exc}); save it as "
+                          "UTF-8 TOML and check the path given to --config") from None
     table = data.get("uncertainty", {})
     if not isinstance(table, dict):
-        raise ConfigError(f"{path}: uncertainty must be a table ([uncertainty])")
+        raise ConfigError(f"{path}: uncertainty must be a table; write it as an [uncertainty] "
+                          "table with one key = value per line")
     return spreads_from_dict(table, str(path))
 
 

@@ -43,9 +43,10 @@ class Outcome:
 
 
 @contextmanager
-def time_limit(seconds: float | None, where: str):
+def time_limit(seconds: float | None, where: str, limit: str = "the per-well time limit"):
     """Raise :class:`WellTimeLimitError` in the block after ``seconds`` (None or 0: no
-    limit; also none outside the main thread or where ``SIGALRM`` does not exist)."""
+    limit; also none outside the main thread or where ``SIGALRM`` does not exist);
+    ``limit`` names the limit in the message."""
     usable = (seconds and seconds > 0 and hasattr(signal, "SIGALRM")
               and threading.current_thread() is threading.main_thread())
     if not usable:
@@ -54,8 +55,9 @@ def time_limit(seconds: float | None, where: str):
 
     def expire(signum, frame):
         raise WellTimeLimitError(
-            f"{where}: still running after the per-well time limit of {seconds:g} s; raise it "
-            "with --well-time-limit (0 = none) or check the file (size, sampling)")
+            f"{where + ': ' if where else ''}still running after {limit} of {seconds:g} s; raise it "
+            "with --well-time-limit (well_time_limit_s in a settings file; 0 = none) "
+            "or check the file (size, sampling)")
 
     previous = signal.signal(signal.SIGALRM, expire)
     signal.setitimer(signal.ITIMER_REAL, seconds)
@@ -66,19 +68,21 @@ def time_limit(seconds: float | None, where: str):
         signal.signal(signal.SIGALRM, previous)
 
 
-def failure(exc: BaseException, path: Path) -> Outcome:
-    """The :class:`Outcome` of an exception raised while screening ``path``."""
+def failure(exc: BaseException, path: Path, *, prefix: bool = True) -> Outcome:
+    """The :class:`Outcome` of an exception raised while screening ``path`` (its message
+    starts with the path unless ``prefix`` is False: a caller that names the item itself,
+    such as a well pair)."""
     where = show_path(path)
     if isinstance(exc, LogprepError):
         msg = escape_line(str(exc).splitlines()[0] if str(exc).strip() else type(exc).__name__)
-        if not msg.startswith(where):
+        if prefix and not msg.startswith(where):
             msg = f"{where}: {msg}"
         return Outcome(msg)
     detail = escape_line(str(exc).strip().splitlines()[0][:160]) if str(exc).strip() else ""
     what = f"{type(exc).__name__}{': ' + detail if detail else ''}"
     return Outcome(
-        f"{where}: internal error ({what}); the other wells go on: please report this with "
-        f"{INTERNAL_LOG_NAME} from the output folder",
+        f"{where + ': ' if prefix else ''}internal error ({what}); the rest of the batch goes on: "
+        f"please report this with {INTERNAL_LOG_NAME} from the output folder",
         internal=True,
         traceback="".join(traceback.format_exception(type(exc), exc, exc.__traceback__)),
     )
@@ -91,14 +95,16 @@ def log_internal(out_dir: Path, path: str, trace: str) -> None:
         f.write(f"--- {stamp} {escape_line(path)}\n{trace}\n")
 
 
-def contained_screen(work, path: Path, time_limit_s: float | None):
+def contained_screen(work, path: Path, time_limit_s: float | None, *, prefix: bool = True,
+                     limit: str = "the per-well time limit"):
     """``(work(), None)``, or ``(None, Outcome)`` when it raised anything (a
-    :class:`KeyboardInterrupt` still stops the run) or ran over ``time_limit_s``."""
+    :class:`KeyboardInterrupt` still stops the run) or ran over ``time_limit_s``
+    (``prefix`` as for :func:`failure`, ``limit`` as for :func:`time_limit`)."""
     try:
-        with time_limit(time_limit_s, show_path(path)):
+        with time_limit(time_limit_s, show_path(path) if prefix else "", limit):
             return work(), None
     except Exception as exc:  # noqa: BLE001 - containment is the point: one well never stops a batch
-        return None, failure(exc, path)
+        return None, failure(exc, path, prefix=prefix)
 
 
 def print_error(msg: str) -> None:
@@ -109,11 +115,24 @@ def print_error(msg: str) -> None:
 def final_line(report, out) -> str:
     """The run's last line: counts, internal errors and paths skipped while scanning."""
     ok = len(report.rows) - len(report.failures)
-    internal = report.internal_errors
-    bugs = (f" ({internal} internal error(s): tracebacks in "
-            f"{show_path(out)}/{INTERNAL_LOG_NAME}, please report)") if internal else ""
+    bugs = internal_clause(report.internal_errors, out)
     skipped = f"; {report.scan_line}" if report.scan_line else ""
     unchanged = (f" ({report.skipped} unchanged since the last run, skipped; --force redoes them)"
                  if report.skipped else "")
     return (f"screened {len(report.rows)} file(s): {ok} ok, {len(report.failures)} failed{bugs}{unchanged}; "
             f"results in {show_path(out)}, summary {show_path(report.summary_path)}{skipped}")
+
+
+def internal_clause(count: int, out) -> str:
+    """`` (N internal error(s): tracebacks in OUT/logprep-internal-errors.log, please
+    report)``, or nothing for none."""
+    return (f" ({count} internal error(s): tracebacks in {show_path(out)}/{INTERNAL_LOG_NAME}, "
+            "please report)") if count else ""
+
+
+def pairs_line(rows: list[dict], out) -> str:
+    """The line after the well pairs: counts, internal errors, the summary file."""
+    bad = sum(r["status"] != "ok" for r in rows)
+    bugs = internal_clause(sum(bool(r.get("internal")) for r in rows), out)
+    return (f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed{bugs}; "
+            f"summary {show_path(out)}/pairs_summary.csv")

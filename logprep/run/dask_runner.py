@@ -82,6 +82,7 @@ def run_on_dask(fn: Callable, tasks: Sequence[tuple], shared: tuple = (), *,
             result = lost("the Dask workers running this task stopped (killed, or out of "
                               "memory); run it alone or give the workers more memory")
         except (OSError, TimeoutError) as exc:
-            raise LogprepError(f"lost the connection to the Dask cluster ({exc})") from None
+            raise LogprepError(f"lost the connection to the Dask cluster ({exc}); check that the "
+                               "--scheduler address runs, then run again (finished wells are kept)") from None
         fut.release()
         yield i, result

@@ -35,11 +35,14 @@ class Backend:
 
     def __post_init__(self) -> None:
         if self.jobs < 1:
-            raise SettingsError(f"--jobs must be 1 or more (got {self.jobs})")
+            raise SettingsError(f"--jobs must be 1 or more (got {self.jobs}); give --jobs 1 for "
+                                "one process or the number of free cores")
         if self.dask_local is not None and self.dask_local < 1:
-            raise SettingsError(f"--dask-local must be 1 or more (got {self.dask_local})")
+            raise SettingsError(f"--dask-local must be 1 or more (got {self.dask_local}); give "
+                                "the number of local Dask workers, such as 2")
         if self.scheduler and self.dask_local:
-            raise SettingsError("give --scheduler or --dask-local, not both")
+            raise SettingsError("--scheduler and --dask-local both given; give --scheduler (a "
+                                "running cluster) or --dask-local (a new one), not both")
 
     @property
     def uses_dask(self) -> bool:

@@ -15,7 +15,6 @@ from collections.abc import Callable, Iterable
 
 import pandas as pd
 
-from logprep.errors import LogprepError
 from logprep.fault.uncertainty import Spreads
 from logprep.io.faults import FaultSpec, read_faults
 from logprep.run.faults import FAULT_COLUMNS, FaultResult, FaultScreenError, screen_fault
@@ -57,12 +56,18 @@ def screen_faults(
     spreads: Spreads | None = None,
     *,
     on_error: Callable[[str], None] | None = None,
+    on_internal: Callable[[str, str], None] | None = None,
 ) -> list[FaultResult]:
     """Screen every fault of ``faults_file`` with wells from the LAS files under ``paths``.
 
     Returns the results of the faults that ran (each with its ``grid`` for the page); a
-    failing fault is reported through ``on_error`` and left out.
+    failing fault is reported through ``on_error`` and left out.  Each fault is contained
+    as a well is (:func:`logprep.run.contain.contained_screen`, twice the per-well time
+    limit): an unexpected exception (a bug) is also passed to ``on_internal`` as
+    ``(where, traceback)``.
     """
+    from logprep.run.contain import contained_screen
+
     from logprep.io.las import read_well_name
     from logprep.io.tops import read_tops
     from logprep.run.batch import find_las_files
@@ -75,29 +80,37 @@ def screen_faults(
     names = {f: read_well_name(f) for f in files}
     cache: dict[Path, object] = {}
     out = []
-    for spec in faults:
-        try:
-            wells = []
-            for name in (spec.footwall, spec.hangingwall):
-                if name is None:
-                    wells.append(None)
-                    continue
-                f = _find(name, files, names, spec)
-                if f not in cache:
-                    cache[f] = screen_file(f, settings, tops=tops)
-                wells.append(cache[f])
-            fw, hw = wells
-            if spec.marker and tops is None:
-                raise FaultScreenError(f"{spec.where}: marker {spec.marker!r} needs a tops file (--tops)")
-            res = screen_fault(spec, fw, hw, settings, spreads)
-            from logprep.io.tops import well_key
+    limit = 2 * settings.well_time_limit_s or None
 
-            res = replace(res, grid=fault_grid(res, fw, settings),
-                          footwall_keys=(well_key(fw.well.name), well_key(Path(fw.well.source).stem)))
-        except LogprepError as exc:
-            msg = str(exc).splitlines()[0]
+    def one(spec):
+        wells = []
+        for name in (spec.footwall, spec.hangingwall):
+            if name is None:
+                wells.append(None)
+                continue
+            f = _find(name, files, names, spec)
+            if f not in cache:
+                cache[f] = screen_file(f, settings, tops=tops)
+            wells.append(cache[f])
+        fw, hw = wells
+        if spec.marker and tops is None:
+            raise FaultScreenError(f"{spec.where}: marker {spec.marker!r} needs a tops file; give "
+                                   "--tops, or a throw without a marker")
+        res = screen_fault(spec, fw, hw, settings, spreads)
+        from logprep.io.tops import well_key
+
+        return replace(res, grid=fault_grid(res, fw, settings),
+                       footwall_keys=(well_key(fw.well.name), well_key(Path(fw.well.source).stem)))
+
+    for spec in faults:
+        res, failed = contained_screen(lambda: one(spec), Path(faults_file), limit, prefix=False,
+                                       limit="the fault time limit (twice the per-well limit)")
+        if failed is not None:
+            msg = failed.message
             if not msg.startswith(str(faults_file)):
                 msg = f"{spec.where}: fault {spec.name!r}: {msg}"
+            if failed.internal and on_internal:
+                on_internal(f"{spec.where}: fault {spec.name!r}", failed.traceback)
             if on_error:
                 on_error(msg)
             continue

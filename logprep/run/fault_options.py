@@ -35,6 +35,9 @@ class FaultRun:
     spreads: object
     results: list = field(default_factory=list)
     errors: list = field(default_factory=list)
+    internal: list = field(default_factory=list)
+    """``(where, traceback)`` of each unexpected exception, logged after the batch (the
+    output folder is made by the batch)."""
     batch_kwargs: dict = field(default_factory=dict)
 
 
@@ -68,7 +71,8 @@ def faults_before_batch(args, paths, settings) -> FaultRun:
         run.errors.append(msg)
         print(f"error: {msg}", file=sys.stderr)
 
-    run.results = screen_faults(paths, args.faults, settings, run.spreads, on_error=report)
+    run.results = screen_faults(paths, args.faults, settings, run.spreads, on_error=report,
+                                on_internal=lambda where, trace: run.internal.append((where, trace)))
     run.batch_kwargs["faults"] = faults_by_footwall(run.results) or None
     return run
 
@@ -81,9 +85,13 @@ def faults_after_batch(args, run: FaultRun, settings) -> bool:
     from logprep.run.config import SETTINGS_FILE_NAME, write_settings
     from logprep.run.fault_batch import FAULTS_FILE_NAME, write_faults
 
+    from logprep.run.contain import internal_clause, log_internal
+
     write_faults(run.results, args.out, settings, sheets=not args.no_sheet)
     write_settings(Path(args.out) / SETTINGS_FILE_NAME, settings, uncertainty=run.spreads)
+    for where, trace in run.internal:
+        log_internal(Path(args.out), where, trace)
     print(f"screened {len(run.results) + len(run.errors)} fault(s) in {run.spreads.realisations} "
-          f"realisations each: {len(run.results)} ok, {len(run.errors)} failed; "
-          f"table {args.out}/{FAULTS_FILE_NAME}")
+          f"realisations each: {len(run.results)} ok, {len(run.errors)} failed"
+          f"{internal_clause(len(run.internal), args.out)}; table {args.out}/{FAULTS_FILE_NAME}")
     return bool(run.errors)

@@ -106,7 +106,8 @@ class Manifest:
             self._fh.write(json.dumps(rec, sort_keys=True) + "\n")
             self._fh.flush()
         except OSError as exc:
-            raise OutputError(f"{self.path}: cannot write ({exc.strerror or exc})") from exc
+            raise OutputError(f"{self.path}: cannot write ({exc.strerror or exc}); check the "
+                              "space and permissions of the output folder, or give another --out") from exc
 
     def record(self, folder: str, *, source: str, input_sha: str, settings_sha: str,
                outputs: dict[str, str], sizes: dict[str, int], row: dict) -> None:

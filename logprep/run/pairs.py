@@ -10,6 +10,7 @@ folder with ``juxtapositions.csv``, ``sgr_field.npz``, ``sheet.pdf`` and ``sheet
 
 from __future__ import annotations
 
+import math
 from pathlib import Path
 from collections.abc import Callable, Iterable
 
@@ -36,26 +37,30 @@ PAIRS_SUMMARY_COLUMNS = ["footwall", "hangingwall", "marker", "shift_m", "slip_s
 def read_pairs(path: str | Path) -> pd.DataFrame:
     """The pairs CSV as a frame with columns ``footwall, hangingwall, marker, shift_m``."""
     path = Path(path)
-    df = read_csv_table(path, PairError, "pairs CSV", dtype=str, keep_default_na=False)
+    df = read_csv_table(path, PairError, "pairs CSV", "--pairs", dtype=str, keep_default_na=False)
     df.columns = [str(c).strip().lower() for c in df.columns]
     missing = [c for c in ("footwall", "hangingwall") if c not in df.columns]
     if missing or not ({"marker", "shift_m"} & set(df.columns)):
         raise PairError(f"{path}: needs columns footwall, hangingwall and marker and/or shift_m "
-                        f"(found {', '.join(df.columns)})")
+                        f"(found {', '.join(df.columns)}); add them to the header line")
     for c in ("marker", "shift_m"):
         if c not in df.columns:
             df[c] = ""
     df = df[["footwall", "hangingwall", "marker", "shift_m"]].apply(lambda s: s.str.strip())
     for k, row in enumerate(df.itertuples(), start=2):
         if not row.footwall or not row.hangingwall:
-            raise PairError(f"{path}: line {k}: footwall and hangingwall must both be named")
+            raise PairError(f"{path}: line {k}: footwall and hangingwall must both be named; "
+                            "write both well names on the line")
         if not row.marker and not row.shift_m:
-            raise PairError(f"{path}: line {k}: give a marker or a shift_m")
+            raise PairError(f"{path}: line {k}: neither marker nor shift_m given; give a "
+                            "marker (with --tops) or a shift_m")
         if row.shift_m and not row.marker:
             try:
-                parse_number(row.shift_m)
+                if not math.isfinite(parse_number(row.shift_m)):
+                    raise ValueError
             except ValueError:
-                raise PairError(f"{path}: line {k}: shift_m {row.shift_m!r} is not a number") from None
+                raise PairError(f"{path}: line {k}: shift_m {row.shift_m!r} is not a "
+                                "number; write the shift in metres as a plain number") from None
     return df
 
 
@@ -64,7 +69,8 @@ def _find(name: str, files: list[Path], names: dict[Path, str]) -> Path:
     for f in files:
         if well_key(f.stem) == key or well_key(names.get(f, "")) == key:
             return f
-    raise PairError(f"well {name!r} not found among the LAS files given")
+    raise PairError(f"well {name!r} not found among the LAS files given; add its "
+                    "LAS file to the command line or fix the name in the pairs file")
 
 
 def pair_windows(fw, hw, shift_m: float, settings) -> pd.DataFrame:
@@ -87,51 +93,67 @@ def pair_task(settings, tops, options, pair: dict, fw_file: tuple[str, str],
               hw_file: tuple[str, str]) -> tuple[dict, dict[str, bytes] | None]:
     """One well pair as a batch task (see :mod:`logprep.run.executor`): screen both wells
     (``(given, readable)`` paths), tie them and return the pair's summary fields and its
-    files as bytes (None on a :class:`LogprepError`, with ``status`` ``error``)."""
+    files as bytes (None on failure, with ``status`` ``error``).  Whatever goes wrong is
+    contained as for a well (:func:`logprep.run.contain.contained_screen`): an unexpected
+    exception gives ``internal`` True and its ``traceback`` (logged by the caller), and
+    the pair gets twice ``options.time_limit_s`` (two wells)."""
+    from logprep.run.contain import contained_screen
+
+    row = {"shift_m": "", "status": "ok", "message": "", "sand_sand_windows": "",
+           "min_window_sgr_pct": ""}
+    limit = 2 * options.time_limit_s if options.time_limit_s else None
+    done, failed = contained_screen(lambda: _screen_pair(settings, tops, options, pair, fw_file, hw_file),
+                                    Path(fw_file[0]), limit, prefix=False,
+                                    limit="the pair time limit (twice the per-well limit)")
+    if failed is not None:
+        msg = failed.message
+        for given, readable in (fw_file, hw_file):
+            msg = msg.replace(readable, given)
+        row.update(status="error", message=msg, internal=failed.internal,
+                   traceback=failed.traceback)
+        return row, None
+    shift, windows, files = done
+    row.update(shift_m=round(shift, 4), sand_sand_windows=len(windows),
+               min_window_sgr_pct=round(float(windows["sgr_min_pct"].min()), 3) if len(windows) else "")
+    return row, files
+
+
+def _screen_pair(settings, tops, options, pair, fw_file, hw_file):
+    """``(shift_m, windows, files)`` of one pair (see :func:`pair_task`)."""
     from dataclasses import replace
 
     from logprep.io.las import read_well
     from logprep.run.pipeline import screen_well
 
-    row = {"shift_m": "", "status": "ok", "message": "", "sand_sand_windows": "",
-           "min_window_sgr_pct": ""}
-    try:
-        fw, hw = (screen_well(replace(read_well(readable, gr_curve=settings.input.gr_curve,
-                                                depth_unit=settings.input.depth_unit), source=given),
-                              settings, tops=tops)
-                  for given, readable in (fw_file, hw_file))
-        if pair["marker"]:
-            if tops is None:
-                raise PairError(f"marker {pair['marker']!r} needs a tops file (--tops)")
-            shift = marker_shift_m(fw.tops, hw.tops, pair["marker"], pair["footwall"],
-                                   pair["hangingwall"])
-        else:
-            shift = parse_number(pair["shift_m"])
-        check_hanging_wall_down(shift, pair["footwall"], pair["hangingwall"], pair["marker"] or None)
-        windows = pair_windows(fw, hw, shift, settings)
-        step = settings.field.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
-        grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=settings.field.throw_max_m,
-                              throw_step_m=settings.field.field_throw_step_m, depth_step_m=step,
-                              slip_source=settings.field.pair_slip_source)
-        files = {"juxtapositions.csv": csv_bytes(with_window_numbers(windows))}
-        if options.field:
-            files["sgr_field.npz"] = grid.npz_bytes(smear=options.field_smear)
-        if options.sheets:
-            from logprep.report.pair_sheet import PairScreening, build_pair_sheet
+    fw, hw = (screen_well(replace(read_well(readable, gr_curve=settings.input.gr_curve,
+                                            depth_unit=settings.input.depth_unit), source=given),
+                          settings, tops=tops)
+              for given, readable in (fw_file, hw_file))
+    if pair["marker"]:
+        if tops is None:
+            raise PairError(f"marker {pair['marker']!r} needs a tops file; give --tops "
+                            "or a shift_m in the pairs file")
+        shift = marker_shift_m(fw.tops, hw.tops, pair["marker"], pair["footwall"],
+                               pair["hangingwall"])
+    else:
+        shift = parse_number(pair["shift_m"])
+    check_hanging_wall_down(shift, pair["footwall"], pair["hangingwall"], pair["marker"] or None)
+    windows = pair_windows(fw, hw, shift, settings)
+    step = settings.field.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
+    grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=settings.field.throw_max_m,
+                          throw_step_m=settings.field.field_throw_step_m, depth_step_m=step,
+                          slip_source=settings.field.pair_slip_source)
+    files = {"juxtapositions.csv": csv_bytes(with_window_numbers(windows))}
+    if options.field:
+        files["sgr_field.npz"] = grid.npz_bytes(smear=options.field_smear)
+    if options.sheets:
+        from logprep.report.pair_sheet import PairScreening, build_pair_sheet
 
-            with plain_text():
-                pages = build_pair_sheet(PairScreening(fw, hw, shift, pair["marker"] or "", windows,
-                                                       grid, settings))
-                files.update({"sheet.pdf": pdf_bytes(pages), "sheet.png": png_bytes(pages[0])})
-    except LogprepError as exc:
-        msg = str(exc).splitlines()[0]
-        for given, readable in (fw_file, hw_file):
-            msg = msg.replace(readable, given)
-        row.update(status="error", message=msg)
-        return row, None
-    row.update(shift_m=round(shift, 4), sand_sand_windows=len(windows),
-               min_window_sgr_pct=round(float(windows["sgr_min_pct"].min()), 3) if len(windows) else "")
-    return row, files
+        with plain_text():
+            pages = build_pair_sheet(PairScreening(fw, hw, shift, pair["marker"] or "", windows,
+                                                   grid, settings))
+            files.update({"sheet.pdf": pdf_bytes(pages), "sheet.png": png_bytes(pages[0])})
+    return shift, windows, files
 
 
 def screen_pairs(
@@ -145,12 +167,17 @@ def screen_pairs(
     field: bool = True,
     field_smear: bool = False,
     backend=None,
+    time_limit_s: float | None = None,
 ) -> list[dict]:
     """Screen every pair of ``pairs_file`` (wells found among the LAS files under
     ``paths``) and write one folder per pair plus ``pairs_summary.csv`` in ``out_dir``
     (``sheets=False``: no ``sheet.pdf``/``sheet.png``; ``field``/``field_smear`` as for
     wells).  One task per pair on ``backend`` (a :class:`logprep.run.executor.Backend`).
-    Returns the summary rows."""
+    A pair's failure is its row's message and the others go on; an unexpected exception
+    (a bug) also appends its traceback to ``logprep-internal-errors.log`` in ``out_dir`` and
+    marks the row ``internal``.  ``time_limit_s`` is the per-well limit (None: the setting
+    ``well_time_limit_s``; a pair gets twice it).  Returns the summary rows."""
+    from logprep.run.contain import log_internal
     from logprep.io.las import read_well_name
     from logprep.io.tops import read_tops
     from logprep.run.batch import find_las_files
@@ -181,7 +208,8 @@ def screen_pairs(
                 "shift_m": p.shift_m}
         tasks.append((pair, (str(fw_f), readable_path(fw_f)), (str(hw_f), readable_path(hw_f))))
         where.append((len(rows) - 1, folder))
-    options = OutputOptions(sheets=sheets, field=field, field_smear=field_smear)
+    limit = settings.input.well_time_limit_s if time_limit_s is None else time_limit_s
+    options = OutputOptions(sheets=sheets, field=field, field_smear=field_smear, time_limit_s=limit)
     worker_settings = settings.updated(survey_dir=readable_path(settings.input.survey_dir)) \
         if settings.input.survey_dir else settings
     try:
@@ -193,6 +221,8 @@ def screen_pairs(
                 outcome = ({"status": "error", "message": outcome.message}, None)
             fields_, files_out = outcome
             row.update(fields_)
+            if row.get("traceback"):
+                log_internal(out, f"{pairs_file}: pair {p.footwall} / {p.hangingwall}", row.pop("traceback"))
             if files_out is not None:
                 commit_folder(out, folder, files_out)
                 row["folder"] = folder

@@ -53,7 +53,8 @@ if len(FIELD_GROUP) != sum(len(fields(c)) for c in GROUPS.values()):  # pragma: 
 
 def _unknown(name: str) -> SettingsError:
     near = difflib.get_close_matches(name, list(FIELD_GROUP) + list(GROUPS), n=1)
-    return SettingsError(f"unknown setting {name!r}" + (f"; did you mean {near[0]!r}?" if near else ""))
+    return SettingsError(f"unknown setting {name!r}; " + (f"did you mean {near[0]!r}?" if near else
+                         "see ScreenSettings for the valid names"))
 
 
 @dataclass(frozen=True, init=False)
@@ -86,7 +87,8 @@ class ScreenSettings:
         for g, cls in GROUPS.items():
             group = given[g] if given[g] is not None else cls()
             if not isinstance(group, cls):
-                raise SettingsError(f"settings group {g} must be a {cls.__name__} (got {type(group).__name__})")
+                raise SettingsError(f"settings group {g} must be a {cls.__name__} (got {type(group).__name__}); "
+                                    f"pass {g}={cls.__name__}(...) or flat fields")
             object.__setattr__(self, g, replace(group, **changes[g]) if changes[g] else group)
 
     def __getattr__(self, name: str):

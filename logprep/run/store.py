@@ -40,7 +40,7 @@ def _umask() -> int:
 
 def _cannot(path: Path, exc: OSError) -> OutputError:
     return OutputError(f"{path}: cannot write ({exc.strerror or exc}); check the space and "
-                       "permissions of the output folder")
+                       "permissions of the output folder, or give another --out")
 
 
 def sha256_bytes(data: bytes) -> str:
@@ -59,7 +59,8 @@ def write_file_atomic(path: Path, data: bytes) -> None:
         os.chmod(tmp, 0o666 & ~_umask())
         os.replace(tmp, path)
     except OSError as exc:
-        tmp.unlink(missing_ok=True)
+        with contextlib.suppress(OSError):  # not there, or its folder is not a folder
+            tmp.unlink()
         raise _cannot(path, exc) from exc
 
 

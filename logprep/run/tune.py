@@ -79,13 +79,14 @@ def rock_reference(result: WellScreening, descriptions: str | Path | pd.DataFram
         desc = descriptions if isinstance(descriptions, pd.DataFrame) else read_descriptions(descriptions)
         mine = descriptions_for_well(desc, well.name, Path(well.source).stem)
         if len(mine) == 0:
-            raise SettingsError(f"{descriptions}: no described interval for well {well.name}")
+            raise SettingsError(f"{descriptions}: no described interval for well {well.name}; "
+                                "add rows for it (well column) or give --rock a file that describes it")
         return labels_at(result.depth_m, mine)
     names = [label_curve] if label_curve else [c for c in LABEL_CURVES if c in well.curves]
     for name in names:
         if name not in well.curves:
             raise SettingsError(f"{well.source}: no label curve {name!r}; found "
-                                f"{', '.join(well.curves)}")
+                                f"{', '.join(well.curves)}; name one of them with --label-curve or give --rock")
         i0 = int(np.searchsorted(well.depth_m, result.depth_m[0]))
         return labels_from_codes(well.curves[name][i0:i0 + result.depth_m.size])
     return None
@@ -103,7 +104,7 @@ def parse_values(text, name: str = "range") -> tuple[float, ...]:
     (0.2, 0.25, 0.3)
     """
     form = (f"{name}: {text!r} is not 'a,b,c' or 'start:stop:step' with stop >= start, "
-            "step > 0")
+            "step > 0; write for example 0.2,0.3 or 0.2:0.4:0.05")
     if isinstance(text, (list, tuple)):
         vals = [float(x) for x in text]
     elif isinstance(text, (int, float)):
@@ -126,9 +127,10 @@ def parse_values(text, name: str = "range") -> tuple[float, ...]:
         except ValueError:
             raise SettingsError(form) from None
     if not vals:
-        raise SettingsError(f"{name}: no values given")
+        raise SettingsError(f"{name}: no values given; give at least one number")
     if not np.isfinite(vals).all():
-        raise SettingsError(f"{name}: {text!r} holds a value that is not a finite number")
+        raise SettingsError(f"{name}: {text!r} holds a value that is not a finite number; "
+                            "give plain numbers")
     if len(vals) > MAX_SWEEP_VALUES:
         raise SettingsError(f"{name}: {len(vals)} values; use at most {MAX_SWEEP_VALUES}")
     return tuple(sorted(set(vals)))
@@ -251,7 +253,8 @@ def sweep_screening(
         (sand_cutoffs, "sand cut-offs"), (shale_cutoffs, "shale cut-offs"),
         (min_beds_m, "minimum beds")))
     if min(beds) < 0 or min(sands) < 0 or max(shales) > 1:
-        raise SettingsError("sweep: cut-offs must lie in 0-1 and minimum beds be >= 0 m")
+        raise SettingsError("sweep: cut-offs must lie in 0-1 and minimum beds be >= 0 m; fix "
+                            "--sand-sweep, --shale-sweep or --bed-sweep")
     thr, leak = s.capacity.sgr_threshold_pct, s.capacity.sgr_leak_pct
     forced = result.tops["top_m"].to_numpy(float) if s.layers.honour_tops and len(result.tops) else ()
     ref_all = result.windows.reset_index(drop=True)

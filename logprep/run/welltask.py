@@ -16,6 +16,8 @@ import time
 from dataclasses import dataclass, field, replace
 from pathlib import Path
 
+from logprep.io.safetext import show_path
+
 
 
 STAGES = ("ingest", "compute", "drawing", "encoding")
@@ -118,6 +120,9 @@ def screen_well_task(settings, tops, options: OutputOptions, fault_work: tuple, 
     done, failed = contained_screen(work, Path(given), options.time_limit_s)
     if failed is not None:
         msg = failed.message.replace(readable, given)
+        doubled = f"{show_path(given)}: {show_path(given)}: "  # the reader names the file too
+        if msg.startswith(doubled):
+            msg = msg[len(doubled) // 2:]
         row.update(status="error", message=msg, internal=failed.internal,
                    traceback=failed.traceback)
         if not any(t.values()):
