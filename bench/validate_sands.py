@@ -22,15 +22,27 @@ median balanced accuracy) is chosen and the held-out well is scored with it
 (leave-one-well-out).  No well is ever scored with a choice made on it.  "In sample" is
 the shipped defaults: the rock and hole constants come from handbooks, but the clay
 defaults were set earlier while looking at 10 of these wells, so that figure is not out of
-sample.  The script also prints the grid point the selection rule picks on all 15 wells.
+sample.  The script also prints the grid point the selection rule picks on all 15 wells
+and checks that it is the shipped default (it must be: the defaults are what this
+documented procedure picks, and the LOWO figures are the out-of-sample estimate of that
+procedure).
+
+**Upper bounds** (``--bounds``, in sample by construction, allowed to look at the labels):
+for each well the best single cut-off on the per-sample Vsh (no blocking; rock classes and
+unusable samples as in the layers) that keeps recall >= 0.75, and the share of labelled
+Sandstone samples that sit in a cell of the well's logs (GR index, density, neutron,
+sonic, binned) where labelled Shale is at least as common: rock these logs cannot tell
+from shale, whatever the rule.
 
     python bench/validate_sands.py [OPEN_LOGS_DIR]          # default ../shared/data/open_logs
     python bench/validate_sands.py --quick [OPEN_LOGS_DIR]  # defaults only, no grid
+    python bench/validate_sands.py --bounds [OPEN_LOGS_DIR] # defaults and upper bounds
 """
 
 from __future__ import annotations
 
 import itertools
+import multiprocessing
 import os
 import sys
 import warnings
@@ -46,6 +58,8 @@ from logprep.model import WellLog
 from logprep.run.pipeline import screen_column
 from logprep.run.settings import ScreenSettings
 
+from sand_bounds import print_bounds  # noqa: E402  (beside this script)
+
 REPO = Path(__file__).resolve().parents[1]
 LABEL_CURVE = "FORCE_2020_LITHOFACIES_LITHOLOGY"
 KGS_GROUPS = {1: "sandstone", 2: "sandy shale", 3: "other", 4: "shale", 5: "limestone",
@@ -55,12 +69,18 @@ sand-bearing rock); 3 fine siltstone; 4 marine siltstone and shale; 5 carbonate 
 6 wackestone, 8 packstone-grainstone, 9 bafflestone (limestones); 7 dolomite."""
 
 GRID: dict[str, tuple] = {
-    "bad_hole_in": (3.0, 4.0, 6.0),
+    "bad_hole_in": (3.0, 4.0),
     "one_sided": ("recentre", "well"),
     "min_contrast": (0.5, 0.7),
     "vsh_combine": ("mean", "min"),
+    "sonic_density": (False, True),
+    "pef_shale_check": (False, True),
 }
-"""Settings a developer could tune on these wells; every combination is a grid point."""
+"""Settings a developer could tune on these wells; every combination is a grid point.
+A bad-hole limit of 6 in is not offered: it lets the top holes of 31/2-7 (353-443 m,
+21.8 in caliper over a 17.5 in bit) and 34/10-19 (211-291 m, about 23 in) back in as
+reservoir, which the requirements forbid (``tests/test_open_sands.py``); those intervals
+carry no label, so the scores here cannot see them."""
 
 GROUPS_SHOWN = ("shale", "marl", "limestone", "chalk", "dolomite", "coal", "tuff", "anhydrite",
                 "halite")
@@ -118,19 +138,32 @@ def grid_points():
         yield dict(zip(keys, values))
 
 
-def leave_one_out(wells, base: ScreenSettings):
-    """``(in_sample_choice, table of per-grid-point scores, out-of-sample rows)``."""
+_WELLS: list = []
+
+
+def _point_rows(changes: dict) -> list[dict]:
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore", RuntimeWarning)
+        s = ScreenSettings().updated(**changes)
+        return [score(w, lab, s) for w, lab in _WELLS]
+
+
+def _init(root):
+    _WELLS[:] = list(force_wells(root))
+
+
+def leave_one_out(root: Path, jobs: int = 2):
+    """``(in_sample_choice, table of per-grid-point scores, out-of-sample rows)``; the
+    grid points are scored in ``jobs`` processes."""
     points = list(grid_points())
-    per_point = []
+    with multiprocessing.get_context("fork").Pool(jobs, _init, (root,)) as pool:
+        per_point = [pd.DataFrame(r) for r in pool.map(_point_rows, points, chunksize=4)]
     for k, changes in enumerate(points):
-        s = base.updated(**changes)
-        rows = [score(w, lab, s) for w, lab in wells]
-        per_point.append(pd.DataFrame(rows))
         print(f"  grid point {k + 1}/{len(points)}: {changes} selection "
-              f"{selection_score(per_point[-1]):.3f}", file=sys.stderr)
+              f"{selection_score(per_point[k]):.3f}", file=sys.stderr)
     full = int(np.argmax([selection_score(t) for t in per_point]))
     oos = []
-    for i in range(len(wells)):
+    for i in range(len(per_point[0])):
         train = [selection_score(t.drop(index=i)) for t in per_point]
         j = int(np.argmax(train))
         row = per_point[j].iloc[i].to_dict()
@@ -159,20 +192,27 @@ def main(argv=sys.argv) -> int:
         return 2
     pd.set_option("display.width", 200)
     base = ScreenSettings()
+    same = True
     with warnings.catch_warnings():
         warnings.simplefilter("ignore", RuntimeWarning)
         wells = list(force_wells(root))
         default = pd.DataFrame([score(w, lab, base) for w, lab in wells])
         print_table("FORCE 2020, shipped defaults (partly set on these wells: in sample)", default)
-        if "--quick" not in argv:
-            choice, _, oos = leave_one_out(wells, base)
+        if "--bounds" in argv:
+            print_bounds(wells, base)
+        if "--quick" not in argv and "--bounds" not in argv:
+            choice, _, oos = leave_one_out(root)
             print(f"\nrule's choice on all 15 wells: {choice}")
+            shipped = {k: getattr(base.clay, k, getattr(base.layers, k, None)) for k in choice}
+            same = shipped == choice
+            verdict = "the rule's choice" if same else "NOT the rule's choice: fix the defaults"
+            print(f"shipped defaults {shipped}: {verdict}")
             print_table("FORCE 2020, leave-one-well-out (each well scored with the grid point "
                         "chosen on the other 14: out of sample)", oos)
             print("  choices: " + "; ".join(f"{r.well}: {r.chosen}" for r in oos.itertuples()))
         kgs = pd.DataFrame([score(w, lab, base) for w, lab in kgs_wells(root)])
         print_table("KGS Panoma (GR and PE, different basin; never used to choose anything)", kgs)
-    return 0
+    return 0 if ("--quick" in argv or "--bounds" in argv or same) else 1
 
 
 if __name__ == "__main__":

@@ -18,14 +18,21 @@ def rock_options(p: argparse.ArgumentParser, d) -> None:
     g.add_argument("--rock-classes", dest="rock_classes", action=argparse.BooleanOptionalAction,
                    help="recognise limestone/chalk, dolomite, coal, anhydrite, halite from "
                         "density, neutron and PEF (default: on)")
+    g.add_argument("--sonic-density", dest="sonic_density", action=argparse.BooleanOptionalAction,
+                   help="where the neutron-density Vsh is missing, use the sonic-density "
+                        f"separation as the second clay indicator (default: {'on' if d.clay.sonic_density else 'off'})")
+    g.add_argument("--pef-shale-check", dest="pef_shale_check", action=argparse.BooleanOptionalAction,
+                   help="leave out the PEF of a hole section whose shales read a carbonate's Pe "
+                        f"(barite mud) (default: {'on' if d.clay.pef_shale_check else 'off'})")
     g.add_argument("--bad-hole", dest="bad_hole_in", type=float, metavar="INCHES",
                    help="caliper over bit size beyond which the logs are unusable "
                         f"(default: {d.clay.bad_hole_in})")
     g.add_argument("--gap-limit", dest="gap_limit_m", type=float, metavar="M",
                    help=f"Vsh interpolated over a longer gap is unusable (default: {d.clay.gap_limit_m})")
     g.add_argument("--top-hole-run", dest="top_hole_run_m", type=float, metavar="M",
-                   help="the top hole ends where density, neutron or sonic are measured this "
-                        f"long; GR above is unusable (default: {d.clay.top_hole_run_m})")
+                   help="the top hole ends (and the foot begins) where density, neutron or "
+                        "sonic are measured this long; GR beyond is unusable "
+                        f"(default: {d.clay.top_hole_run_m})")
     g.add_argument("--max-unusable", dest="max_unusable", type=float, metavar="FRACTION",
                    help="a layer with a larger unusable share is 'no data' "
                         f"(default: {d.layers.max_unusable})")

@@ -142,7 +142,7 @@ def _write(tmp: Path, name: str, text: str | bytes) -> Path:
 def cases(tmp: Path) -> list:
     """Callables, each expected to raise an error of the family."""
     from logprep.changepoint import pelt_mean_breaks
-    from logprep.clay import endpoints, holecheck, qc, vshale
+    from logprep.clay import endpoints, holecheck, qc, sonicdensity, vshale
     from logprep.fault import burial, capacity, clayfraction, closure, co2, envelope, faultrock, geometry, sgr
     from logprep.fault import twowell, uncertainty
     from logprep.io import csvtable, descriptions, faults, las, locations, sanity, survey, tops
@@ -210,6 +210,8 @@ def cases(tmp: Path) -> list:
     add(lambda: vshale.resolve_endpoint("p5", np.array([])))
     add(lambda: vshale.density_porosity([2.3], 1.0, 2.0))
     add(lambda: vshale.vsh_neutron_density([0.3], [0.2], 0.0))
+    add(lambda: sonicdensity.sonic_porosity([90.0], 189.0, 55.5))
+    add(lambda: sonicdensity.vsh_sonic_density([0.1], 0.0))
     add(lambda: vshale.density_g_cm3([2300.0], "stone"))
     add(lambda: units.length(1.0, "league", "m"))
     add(lambda: burial.surface_elevation_m(water_depth_m=10, ground_elevation_m=5))

@@ -123,7 +123,7 @@ def test_top_hole_modelled_trend_and_gr_only_well():
 def test_unusable_flags_keys():
     z = np.arange(0.0, 50.0, 0.5)
     u = unusable_flags(z, filled=np.zeros(z.size, bool), qc_failed=np.zeros(z.size, bool))
-    assert set(u) == {"bad_hole", "long_gap", "qc_failed", "top_hole"}
+    assert set(u) == {"bad_hole", "long_gap", "qc_failed", "top_hole", "log_tail"}
 
 
 def test_boundaries_and_majority_assignment():

@@ -1,4 +1,4 @@
-"""Samples that cannot tell rock: badly enlarged hole, long filled gaps, top hole.
+"""Samples that cannot tell rock: badly enlarged hole, long filled gaps, top hole, GR-only foot.
 
 A gamma ray read in a 22 in hole full of mud, a clay volume interpolated over 200 m of
 missing log, or a surface section logged with nothing but a gamma ray through casing is
@@ -23,6 +23,7 @@ UNUSABLE_REASONS = {
     "long_gap": "clay volume interpolated over a gap longer than the gap limit",
     "qc_failed": "gamma ray missing or rejected by QC",
     "top_hole": "top hole without usable density, neutron or sonic logs",
+    "log_tail": "gamma ray alone below the last density, neutron or sonic readings",
 }
 """Why a sample is unusable, by name (also the ``no data`` reasons in ``layers.csv``)."""
 
@@ -61,7 +62,7 @@ def inferred_bit_size_in(depth_m, cali_in, window_m: float = 50.0,
     return np.where(np.isfinite(cali) & (bs > 0), bs, np.nan)
 
 
-def bad_hole_flags(cali_in, bs_in, limit_in: float = 4.0) -> np.ndarray:
+def bad_hole_flags(cali_in, bs_in, limit_in: float = 3.0) -> np.ndarray:
     """Caliper more than ``limit_in`` inches over the bit size: the hole is so enlarged
     that the gamma ray (mud between tool and wall) and the pad tools do not read the
     rock.  (The ordinary ``washout`` QC flag, 1.5 in by default, only keeps samples out of
@@ -129,8 +130,21 @@ def top_hole_flags(depth_m, aux_curves, min_run_m: float = 30.0) -> np.ndarray:
     return out
 
 
+def log_tail_flags(depth_m, aux_curves, min_run_m: float = 30.0) -> np.ndarray:
+    """Samples below the last ``min_run_m`` metres in which some auxiliary log (density,
+    neutron, sonic) is measured, when the well has one: the foot of the well logged with
+    a gamma ray alone (F03-4: 1858-1900 m, GR of 10-14 API in the chalk below the last
+    density and sonic).  A clean gamma ray there could be sand, chalk or anhydrite, and
+    the well's own lithology logs, which would tell, stop above it.  The mirror of
+    :func:`top_hole_flags` (its run taken from the foot up)."""
+    depth = np.asarray(depth_m, dtype=float)
+    up = top_hole_flags(-depth[::-1], [None if c is None else np.asarray(c, dtype=float)[::-1]
+                                       for c in aux_curves], min_run_m)
+    return up[::-1]
+
+
 def unusable_flags(depth_m, *, filled, qc_failed, cali_in=None, bs_in=None, aux_curves=(),
-                   bad_hole_in: float = 4.0, gap_limit_m: float = 5.0,
+                   bad_hole_in: float = 3.0, gap_limit_m: float = 5.0,
                    top_hole_run_m: float = 30.0) -> dict[str, np.ndarray]:
     """Every reason of :data:`UNUSABLE_REASONS` as a boolean array.  ``bs_in`` None with a
     caliper takes :func:`inferred_bit_size_in`."""
@@ -146,4 +160,5 @@ def unusable_flags(depth_m, *, filled, qc_failed, cali_in=None, bs_in=None, aux_
         "long_gap": long_gap_flags(depth, filled, gap_limit_m),
         "qc_failed": np.asarray(qc_failed, dtype=bool),
         "top_hole": top_hole_flags(depth, aux_curves, top_hole_run_m),
+        "log_tail": log_tail_flags(depth, aux_curves, top_hole_run_m),
     }

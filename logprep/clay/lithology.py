@@ -22,6 +22,16 @@ The classes (:data:`ROCK_CLASSES`) and the rules:
   midpoint (4.11 b/e) is limestone.
 * ``dolomite``: apparent matrix density above the calcite-dolomite midpoint, ``Umaa``
   between the quartz-dolomite and dolomite-calcite midpoints, clean on the GR; needs PEF.
+* No carbonate is called from the sonic.  The apparent matrix slowness
+  ``dt_maa = (dt - phi dt_f) / (1 - phi)`` (Schlumberger 2009, rho_maa-dt_maa plot) was
+  tried where the PEF is missing and measured on the 15 labelled FORCE wells: labelled
+  limestone (mostly chalk) reads 52-56 us/ft there (median per well), inside the
+  sandstone range 51.0-55.5 (Asquith & Krygowski 2004 [from memory]), because the
+  time-average fails in chalk; a rule "dt_maa below 49.3" added 252 labelled Sandstone
+  samples to the limestone calls for 166 labelled Limestone.  With density and sonic
+  alone (no neutron) the time average puts a quartz sand and a limestone of the same
+  bulk density 2-3 us/ft apart (2.36 g/cm3: 79 against 76.5 us/ft), within the scatter
+  a little clay makes, so no log rule separates them either.
 * ``tuff`` is a class name for described rock only: the North Sea tuffs read like shale
   on these logs (see README, validation), so no log rule calls it.
 
@@ -47,7 +57,7 @@ import numpy as np
 from logprep.model import ROCK_CLASSES
 
 __all__ = ["ROCK_CLASSES", "classify_rock", "apparent_matrix_density", "apparent_matrix_u",
-           "missing_curve_notes"]
+           "missing_curve_notes", "pef_trusted"]
 
 # ---------------------------------------------------------------- published responses
 # name: (bulk density g/cm3, neutron limestone-scale v/v, slowness us/ft, Pe b/e, U b/cm3)
@@ -107,6 +117,55 @@ UMAA_DOLOMITE_CALCITE = 0.5 * (MINERALS["dolomite"][4] + MINERALS["calcite"][4])
 UMAA_QUARTZ_DOLOMITE = 0.5 * (MINERALS["quartz"][4] + MINERALS["dolomite"][4])
 PE_DOLOMITE_CALCITE = 0.5 * (MINERALS["dolomite"][3] + MINERALS["calcite"][3])
 """4.11 b/e: above it a clean rock's Pe is nearer calcite than dolomite (or quartz, 1.81)."""
+
+
+SHALE_IGR_MIN = 1.0 - CLEAN_IGR_MAX
+"""Gamma-ray index above which a sample is taken as shale for the PEF check (the mirror
+of the clean gate; common practice, no source)."""
+
+SHALE_PE_B_E = 3.42
+"""Pe of an average shale, b/e (Schlumberger Log Interpretation Charts, mineral table,
+"shale (average)" [from memory]); the clay minerals read 1.8-3.5 (kaolinite 1.83,
+smectite 2.04, illite 3.45; Crain's Handbook mineral table), chlorite alone 6.3."""
+
+
+def pef_trusted(pef_b_e, igr, section, *, min_samples: int = 30):
+    """Where the PEF can be used for the carbonate calls: ``(mask, notes)``.
+
+    In each hole section (equal values of ``section``, e.g. the bit size) the median Pe of
+    the shale samples (gamma-ray index at least :data:`SHALE_IGR_MIN`) is compared with
+    the dolomite-calcite midpoint :data:`PE_DOLOMITE_CALCITE` (4.11 b/e).  A shale
+    reading nearer calcite than dolomite is not a shale's response (average shale
+    :data:`SHALE_PE_B_E`): barite in the mud or mudcake (Pe of barite 267 b/e,
+    Schlumberger 2009 charts) or a shifted tool lifts every reading of the section, and a
+    quartz sand there would read as calcite.  The PEF of such a section is not used.
+    A section with fewer than ``min_samples`` shale samples keeps its PEF.
+
+    Examples
+    --------
+    >>> import numpy as np
+    >>> pe = np.r_[np.full(50, 3.3), np.full(50, 4.9)]      # shales: 3.3, then 4.9 b/e
+    >>> ok, notes = pef_trusted(pe, np.full(100, 0.9), np.r_[np.zeros(50), np.ones(50)])
+    >>> int(ok[:50].sum()), int(ok[50:].sum())
+    (50, 0)
+    """
+    pef = np.asarray(pef_b_e, dtype=float)
+    ig = np.asarray(igr, dtype=float)
+    sec = np.asarray(section)
+    ok = np.ones(pef.size, dtype=bool)
+    notes = []
+    with np.errstate(invalid="ignore"):
+        shale = np.isfinite(pef) & (ig >= SHALE_IGR_MIN)
+    for value in np.unique(sec[np.isfinite(pef)]):
+        inside = sec == value
+        m = shale & inside
+        if m.sum() < min_samples:
+            continue
+        pe_sh = float(np.median(pef[m]))
+        if pe_sh > PE_DOLOMITE_CALCITE:
+            ok &= ~inside
+            notes.append(f"{pe_sh:.2f} b/e")
+    return ok, notes
 
 
 def density_porosity_limestone(rhob_g_cm3, rho_fluid_g_cm3: float = RHO_FLUID_G_CM3):

@@ -34,6 +34,8 @@ QC_FLAGS: dict[str, tuple[int, str, str]] = {
                  "unusable: a layer mostly of these is 'no data', never reservoir"),
     "top_hole": (2048, "top hole without usable density, neutron or sonic logs",
                  "unusable: a layer mostly of these is 'no data', never reservoir"),
+    "log_tail": (4096, "gamma ray alone below the last density, neutron or sonic readings",
+                 "unusable: a layer mostly of these is 'no data', never reservoir"),
 }
 """QC flag name -> (bit in the exported QC curve, meaning, action)."""
 

@@ -51,7 +51,15 @@ class ClaySettings:
         Vsh interpolated over a gap longer than this (m) is unusable.
     top_hole_run_m : float
         The top hole ends where density, neutron or sonic are first measured for this
-        many metres; the gamma ray above is unusable (wells with a GR only are exempt).
+        many metres (and, at the foot, where they were last measured for that many
+        metres); the gamma ray beyond is unusable (wells with a GR only are exempt).
+    sonic_density : bool
+        Where the neutron-density Vsh is missing (no neutron, or none over an interval),
+        use the sonic-density separation as the second clay indicator
+        (:mod:`logprep.clay.sonicdensity`).
+    pef_shale_check : bool
+        Do not use the PEF in a hole section whose shales read a carbonate's Pe (barite in
+        the mud or a shifted tool; :func:`logprep.clay.lithology.pef_trusted`).
     """
 
     transform: str = "linear"
@@ -66,9 +74,11 @@ class ClaySettings:
     drho_max_g_cm3: float = 0.10
     one_sided: str = "recentre"
     rock_classes: bool = True
-    bad_hole_in: float = 4.0
+    bad_hole_in: float = 3.0
     gap_limit_m: float = 5.0
     top_hole_run_m: float = 30.0
+    sonic_density: bool = True
+    pef_shale_check: bool = False
 
     def __post_init__(self) -> None:
         require_finite_fields(self)

@@ -13,7 +13,8 @@ from logprep.clay.endpoints import (
     lines_per_sample, nd_shale_separation, one_sided_note, pick_endpoints, zone_bounds,
 )
 from logprep.clay.holecheck import inferred_bit_size_in, unusable_flags
-from logprep.clay.lithology import classify_rock, missing_curve_notes
+from logprep.clay.lithology import classify_rock, missing_curve_notes, pef_trusted
+from logprep.clay.sonicdensity import slowness_us_ft, sonic_density_separation, vsh_sonic_density
 from logprep.clay.qc import (
     ND_ONLY, REPLACED, QcSettings, any_flag, density_correction_flags, gr_flags, inches, washout_flags,
 )
@@ -45,6 +46,7 @@ class ClayVolume:
     notes: tuple[str, ...]
     rock: np.ndarray | None = None
     unusable: dict | None = None
+    vsh_sd: np.ndarray | None = None
 
 
 def _curve_in(well: WellLog, kind: str, sl: slice, convert, notes: list[str]):
@@ -80,7 +82,10 @@ def clay_volume(well: WellLog, settings: ClaySettings = ClaySettings(),
     notes = []
     cali = _curve_in(well, "cali", sl, inches, notes)
     bs = _curve_in(well, "bs", sl, inches, notes)
-    flags = gr_flags(depth, gr_read, cali_in=cali, bs_in=bs,
+    # no bit-size curve: washouts judged on the bit size inferred from the caliper (as
+    # the bad-hole check does), so the neutron-density is not read in enlarged hole
+    hole_bs = inferred_bit_size_in(depth, cali) if (bs is None and cali is not None) else bs
+    flags = gr_flags(depth, gr_read, cali_in=cali, bs_in=hole_bs,
                      settings=QcSettings(washout_in=settings.washout_in))
     gr = np.where(any_flag(flags, REPLACED), np.nan, gr_read)
     exclude = any_flag(flags, [k for k in flags if k not in ND_ONLY])
@@ -121,21 +126,48 @@ def clay_volume(well: WellLog, settings: ClaySettings = ClaySettings(),
         flags["gas_crossover"] = gas_crossover(nphi, phid) & usable & np.isfinite(gr)
         if not usable.any():
             notes.append("neutron-density: no usable shale point; GR Vsh alone")
-    vsh = get_combination(settings.vsh_combine)(vsh_gr, vsh_nd)
+    dt = _curve_in(well, "dt", sl, slowness_us_ft, notes)
+    vsh_sd = np.full(depth.size, np.nan)
+    if settings.sonic_density and dt is not None and rhob is not None and settings.vsh_combine != "gr":
+        vsh_sd = sonic_density_vsh(depth, gr, dt, rhob, picks,
+                                   exclude=exclude | flags["washout"] | flags["bad_density"],
+                                   where=~np.isfinite(vsh_nd))
+        if np.isfinite(vsh_sd).any():
+            notes.append(f"sonic-density Vsh used where the neutron-density is missing "
+                         f"({np.isfinite(vsh_sd).mean():.0%} of the samples)")
+    second = np.where(np.isfinite(vsh_nd), vsh_nd, vsh_sd)
+    vsh = get_combination(settings.vsh_combine)(vsh_gr, second)
     note = one_sided_note(picks)
     if note:
         notes.append(note)
     rock, unusable = rock_and_unusable(well, sl, settings, depth=depth, vsh=vsh, flags=flags,
                                        igr=gamma_ray_index(gr, clean_line, shale_line),
-                                       curves=dict(rhob=rhob, nphi=nphi, cali=cali, bs=bs),
+                                       curves=dict(rhob=rhob, nphi=nphi, cali=cali, bs=bs, dt=dt),
                                        notes=notes)
     return ClayVolume(
         depth_m=depth, gr_api=gr_read, vsh_gr=vsh_gr, vsh_nd=vsh_nd, vsh=vsh, qc_flags=flags,
         picks=picks, gr_clean_line=clean_line, gr_shale_line=shale_line,
         gr_clean_api=float(whole["gr_clean_api"].iloc[0]),
         gr_shale_api=float(whole["gr_shale_api"].iloc[0]), notes=tuple(notes),
-        rock=rock, unusable=unusable,
+        rock=rock, unusable=unusable, vsh_sd=vsh_sd,
     )
+
+
+def sonic_density_vsh(depth, gr, dt_us_ft, rhob_g_cm3, picks: pd.DataFrame, *, exclude, where):
+    """Sonic-density Vsh (:mod:`logprep.clay.sonicdensity`) at the samples ``where`` (NaN
+    elsewhere), each zone's shale separation read like the neutron-density one
+    (:func:`logprep.clay.endpoints.nd_shale_separation`: the median over the zone's
+    shaliest samples by GR, at least 0.02)."""
+    sep = sonic_density_separation(dt_us_ft, rhob_g_cm3)
+    shale_sep = nd_shale_separation(depth, gr, sep, picks, exclude=exclude)
+    line = lines_per_sample(depth, picks.assign(sd_shale_separation=shale_sep),
+                            "sd_shale_separation")
+    out = np.full(depth.size, np.nan)
+    use = np.asarray(where, dtype=bool) & np.isfinite(line) & np.isfinite(sep) & ~exclude
+    for value in np.unique(line[use]):
+        m = use & (line == value)
+        out[m] = vsh_sonic_density(sep[m], float(value))
+    return out
 
 
 def rock_and_unusable(well: WellLog, sl: slice, settings: ClaySettings, *, depth, vsh, flags,
@@ -144,12 +176,22 @@ def rock_and_unusable(well: WellLog, sl: slice, settings: ClaySettings, *, depth
     unusable-sample masks (:func:`logprep.clay.holecheck.unusable_flags`); the
     ``bad_hole``, ``long_gap`` and ``top_hole`` masks are also added to ``flags`` (they are
     QC findings of ``qc.csv``), and a note per missing curve goes to ``notes``."""
-    rhob, nphi, cali, bs = curves["rhob"], curves["nphi"], curves["cali"], curves["bs"]
+    rhob, nphi, cali, bs, dt = (curves[k] for k in ("rhob", "nphi", "cali", "bs", "dt"))
     pef = _curve_in(well, "pef", sl, lambda v, _u: np.asarray(v, dtype=float), notes)
-    dt = _curve_in(well, "dt", sl, lambda v, _u: np.asarray(v, dtype=float), notes)
     enlarged = flags["washout"]
+    hole = bs
     if cali is not None and bs is None:  # no bit size: judge the washout on the inferred one
-        enlarged = enlarged | washout_flags(cali, inferred_bit_size_in(depth, cali), settings.washout_in)
+        hole = inferred_bit_size_in(depth, cali)
+        enlarged = enlarged | washout_flags(cali, hole, settings.washout_in)
+    if pef is not None and settings.pef_shale_check and settings.rock_classes:
+        section = np.nan_to_num(np.zeros(depth.size) if hole is None else hole, nan=-1.0)
+        ok, high = pef_trusted(pef, igr, section)
+        if not ok.all():
+            step = float(np.median(np.diff(depth))) if depth.size > 1 else 0.0
+            notes.append(f"lithology: PEF not used over {(~ok).sum() * step:.0f} m, where the "
+                         f"shales read {', '.join(high)} (above 4.11 b/e, a carbonate's Pe: "
+                         "barite mud or a shifted tool)")
+            pef = np.where(ok, pef, np.nan)
     if settings.rock_classes and ((rhob is not None and nphi is not None) or pef is not None):
         rock = classify_rock(rhob_g_cm3=rhob, nphi_v_v=nphi, pef_b_e=pef, igr=igr,
                              washout=enlarged)
@@ -164,9 +206,10 @@ def rock_and_unusable(well: WellLog, sl: slice, settings: ClaySettings, *, depth
                               bs_in=bs, aux_curves=[rhob, nphi, dt],
                               bad_hole_in=settings.bad_hole_in, gap_limit_m=settings.gap_limit_m,
                               top_hole_run_m=settings.top_hole_run_m)
-    for k in ("bad_hole", "long_gap", "top_hole"):
+    for k in ("bad_hole", "long_gap", "top_hole", "log_tail"):
         flags[k] = unusable[k]
     for k, what in (("top_hole", "top hole without usable logs"),
+                    ("log_tail", "gamma ray alone below the last lithology logs"),
                     ("bad_hole", "badly enlarged hole"), ("long_gap", "long filled gaps")):
         if unusable[k].any():
             step = float(np.median(np.diff(depth))) if depth.size > 1 else 0.0

@@ -116,7 +116,8 @@ def _pickle_sha256(obj) -> str:
 
 def pending_row(folder: str, given: str) -> dict:
     row = summary_row(folder, given)
-    row.update(status="pending", message="not screened yet (the run was stopped before this well)")
+    row.update(status="pending", message="not screened yet (the run was stopped before this well); "
+               "run the same command again to screen it (finished wells are kept)")
     return row
 
 

@@ -11,8 +11,10 @@ from logprep.fault.juxtaposition import sand_windows
 from logprep.fault.settings import capacity_params
 from logprep.fault.sgr import sgr_field
 from logprep.fault.smear import window_smear, with_smear_fields
-from logprep.layers.blocking import block_with_boundaries
-from logprep.run.pipeline import WellScreening
+import numpy as np
+
+from logprep.layers.stage import blocked_column
+from logprep.run.pipeline import WellScreening, qc_flagged
 
 BLOCKING_FIELDS = ("sand_cutoff", "shale_cutoff", "min_bed_m", "blocking", "changepoint_penalty",
                    "honour_tops")
@@ -30,8 +32,10 @@ def reblock(result: WellScreening, **changes) -> WellScreening:
     s = result.settings.updated(**changes)
     lay, fld = s.layers, s.field
     forced = result.tops["top_m"].to_numpy(float) if lay.honour_tops and len(result.tops) else ()
-    layers = block_with_boundaries(lay.blocking, result.depth_m, result.vsh, forced,
-                                   filled=result.filled, **lay.blocking_kwargs())
+    # the pipeline's own blocked column: rock classes and no-data layers as in layers.csv
+    raw = np.where(result.filled, np.nan, result.vsh)
+    layers = blocked_column(result.depth_m, raw, lay, forced_m=forced, rock=result.rock,
+                            unusable=result.unusable, flagged=qc_flagged(result.qc_flags)).layers
     windows = sand_windows(layers, fld.throw_max_m)
     grid = with_smear_fields(sgr_field(layers, result.depth_m, result.vsh, throw_max_m=fld.throw_max_m,
                                        throw_step_m=fld.field_throw_step_m,

@@ -229,6 +229,44 @@ def window_verdicts(ref_windows: pd.DataFrame, layers: Layers, windows: pd.DataF
     return out
 
 
+def _reference(result: WellScreening):
+    """The reference windows of ``result``: ``(all rows, rows between different sands,
+    their sheet numbers, their verdicts)``."""
+    s = result.settings
+    ref_all = result.windows.reset_index(drop=True)
+    cross_rows = np.flatnonzero(~ref_all["self_juxtaposed"].to_numpy(bool))
+    ref = ref_all.iloc[cross_rows].reset_index(drop=True)
+    ref_verdict = [str(v) for v in verdict(ref["sgr_min_pct"].to_numpy(float),
+                                           s.capacity.sgr_leak_pct, s.capacity.sgr_threshold_pct)]
+    return ref_all, ref, [int(k) + 1 for k in cross_rows], ref_verdict
+
+
+def verdict_changes(result: WellScreening, layers: Layers, windows: pd.DataFrame,
+                    reference=None) -> tuple[dict, list[str]]:
+    """How another blocking (``layers``, ``windows``) of ``result``'s clay volume changes
+    ``result``'s verdicts: ``({"verdicts_flipped", "new_leak_windows", "windows_changed"},
+    verdict of each reference window)`` (the sweep's columns; see the module notes)."""
+    ref_all, ref, _, ref_verdict = reference or _reference(result)
+    thr, leak = result.settings.capacity.sgr_threshold_pct, result.settings.capacity.sgr_leak_pct
+    cross = windows[~windows["self_juxtaposed"]]
+    verdicts = window_verdicts(ref, layers, windows, thr, leak)
+    leaking = cross[cross["sgr_min_pct"] < leak]
+    new_leaks = sum(v != "leak" for v in window_verdicts(leaking, result.layers, ref_all, thr, leak))
+    flips = sum((v == "leak") != (r == "leak") for v, r in zip(verdicts, ref_verdict))
+    return {"verdicts_flipped": flips + new_leaks, "new_leak_windows": new_leaks,
+            "windows_changed": sum(v != r for v, r in zip(verdicts, ref_verdict))}, verdicts
+
+
+def rock_match(result: WellScreening, layers: Layers, labels) -> dict:
+    """Scores of the reservoir layers of ``layers`` against a rock group per sample of
+    ``result.depth_m`` (:func:`rock_reference`): the sweep's ``rock_precision``,
+    ``rock_recall`` and ``rock_balanced_accuracy`` (:func:`logprep.layers.rockscore.rock_scores`)."""
+    sc = rock_scores(called_reservoir(result.depth_m, layers.top_m, layers.base_m,
+                                      layers.reservoir), labels)
+    return {"rock_precision": sc["precision"], "rock_recall": sc["recall"],
+            "rock_balanced_accuracy": sc["balanced_accuracy"]}
+
+
 def sweep_screening(
     result: WellScreening,
     sand_cutoffs=DEFAULT_SAND_CUTOFFS,
@@ -255,14 +293,10 @@ def sweep_screening(
     if min(beds) < 0 or min(sands) < 0 or max(shales) > 1:
         raise SettingsError("sweep: cut-offs must lie in 0-1 and minimum beds be >= 0 m; fix "
                             "--sand-sweep, --shale-sweep or --bed-sweep")
-    thr, leak = s.capacity.sgr_threshold_pct, s.capacity.sgr_leak_pct
     forced = result.tops["top_m"].to_numpy(float) if s.layers.honour_tops and len(result.tops) else ()
-    ref_all = result.windows.reset_index(drop=True)
-    cross_rows = np.flatnonzero(~ref_all["self_juxtaposed"].to_numpy(bool))
-    ref = ref_all.iloc[cross_rows].reset_index(drop=True)
-    numbers = [int(k) + 1 for k in cross_rows]  # the sheet's window numbers
+    reference = _reference(result)
+    ref, numbers, ref_verdict = reference[1], reference[2], reference[3]
     names = [f"w{k}" for k in numbers]
-    ref_verdict = [str(v) for v in verdict(ref["sgr_min_pct"].to_numpy(float), leak, thr)]
 
     combos = [(s.layers.sand_cutoff, s.layers.shale_cutoff, s.layers.min_bed_m)]
     combos += [c for c in itertools.product(sands, shales, beds) if c[0] < c[1]]
@@ -282,10 +316,7 @@ def sweep_screening(
                                     flagged=qc_flagged(result.qc_flags)).layers
             windows = sand_windows(layers, s.field.throw_max_m)
         cross = windows[~windows["self_juxtaposed"]]
-        verdicts = window_verdicts(ref, layers, windows, thr, leak)
-        leaking = cross[cross["sgr_min_pct"] < leak]
-        new_leaks = sum(v != "leak" for v in window_verdicts(leaking, result.layers, ref_all, thr, leak))
-        flips = sum((v == "leak") != (r == "leak") for v, r in zip(verdicts, ref_verdict))
+        changes, verdicts = verdict_changes(result, layers, windows, reference)
         row = {
             "sand_cutoff": sand, "shale_cutoff": shale, "min_bed_m": bed,
             "is_reference": k == 0, "layers": len(layers),
@@ -293,16 +324,10 @@ def sweep_screening(
             "net_to_gross": net_to_gross(layers),
             "sand_sand_windows": len(cross),
             "min_window_sgr_pct": float(cross["sgr_min_pct"].min()) if len(cross) else np.nan,
-            "leak_windows": int((cross["sgr_min_pct"] < leak).sum()),
-            "verdicts_flipped": flips + new_leaks,
-            "new_leak_windows": new_leaks,
-            "windows_changed": sum(v != r for v, r in zip(verdicts, ref_verdict)),
-        }
+            "leak_windows": int((cross["sgr_min_pct"] < s.capacity.sgr_leak_pct).sum()),
+        } | changes
         if reference_labels is not None:
-            sc = rock_scores(called_reservoir(result.depth_m, layers.top_m, layers.base_m,
-                                              layers.reservoir), reference_labels)
-            row |= {"rock_precision": sc["precision"], "rock_recall": sc["recall"],
-                    "rock_balanced_accuracy": sc["balanced_accuracy"]}
+            row |= rock_match(result, layers, reference_labels)
         row.update(zip(names, verdicts))
         rows.append(row)
     rock_cols = ROCK_COLUMNS if reference_labels is not None else []
