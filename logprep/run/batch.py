@@ -59,6 +59,9 @@ class BatchReport:
     scan_line: str | None = None
     warnings: list[str] = field(default_factory=list)
     """One-line warnings about shared inputs (a survey that matches no well)."""
+    overview: dict[str, Path] = field(default_factory=dict)
+    """The field overview written after the wells (``overview.html``, ``overview.pdf`` ->
+    path); empty when it was turned off."""
 
     @property
     def failures(self) -> list[dict]:
@@ -136,6 +139,8 @@ def screen_paths(
     faults=None,
     spreads=None,
     time_limit_s: float | None = None,
+    overview: bool = True,
+    locations: str | Path | None = None,
 ) -> BatchReport:
     """Screen every LAS file under ``paths`` and write results below ``out_dir``.
 
@@ -156,6 +161,12 @@ def screen_paths(
     in that many worker processes, ``backend`` on a Dask cluster (results are the same);
     ``sheets=False`` skips the PDF/PNG sheets, ``field=False`` the SGR field file and
     ``field_smear`` adds the smear fields to it.
+
+    After the wells, the field overview (``overview.html`` to open in a browser and the
+    one-page ``overview.pdf``, see :mod:`logprep.report.overview`) is written in
+    ``out_dir`` from what the folder holds, well locations from the LAS headers or the
+    ``locations`` file; ``overview=False`` leaves it out (remake it at any time with
+    :func:`logprep.report.overview_files.write_overview` or ``logprep overview DIR``).
     """
     settings = settings if settings is not None else ScreenSettings()
     backend = backend if backend is not None else Backend(jobs=jobs)
@@ -166,6 +177,10 @@ def screen_paths(
         raise LogprepError(f"no .las files found in {', '.join(map(str, paths))}"
                            + (f" ({scan.summary_line()})" if scan.skipped else "")
                            + "; name LAS files or folders that hold them")
+    if overview and locations is not None:
+        from logprep.io.locations import read_locations
+
+        read_locations(locations)  # a bad locations file is found before any well runs
     # inputs shared by every well are checked once, before any well is screened
     prepare_out_dir(out)
     clean_leftovers(out)
@@ -245,6 +260,10 @@ def screen_paths(
     if settings.input.survey_dir:
         names = [r["well"] for r in rows] + [Path(r["source"]).stem for r in rows]
         report.warnings = unmatched_survey_warnings(settings.input.survey_dir, names)
+    if overview:
+        from logprep.report.overview_files import write_overview
+
+        report.overview = write_overview(out, locations)
     return report
 
 
