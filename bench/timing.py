@@ -13,3 +13,19 @@ def best_time_s(fn, repeats: int) -> float:
         fn()
         times.append(time.perf_counter() - t0)
     return min(times)
+
+
+def best_interleaved_s(fns, repeats: int) -> list[tuple[float, float]]:
+    """Best wall time and best CPU time (s) of each of ``fns``, the calls interleaved
+    (``a, b, a, b, ...``) so that every function meets the same load on a shared machine.
+    CPU time (``time.process_time``, this process, all threads) is what a ratio of
+    single-process work is steadiest in when other jobs share the cores."""
+    wall = [[] for _ in fns]
+    cpu = [[] for _ in fns]
+    for _ in range(repeats):
+        for k, fn in enumerate(fns):
+            t0, c0 = time.perf_counter(), time.process_time()
+            fn()
+            wall[k].append(time.perf_counter() - t0)
+            cpu[k].append(time.process_time() - c0)
+    return [(min(w), min(c)) for w, c in zip(wall, cpu)]

@@ -248,6 +248,7 @@ def cmd_screen(args) -> int:
         progress=Progress("quiet" if args.quiet else "auto", sys.stderr),
         backend=backend, sheets=not args.no_sheet, field=not args.no_field,
         field_smear=args.field_smear, force=args.force, **faults.batch_kwargs,
+        overview=False,  # written below, once the pairs and faults are in the folder too
     )
     for msg in report.warnings:
         print(f"warning: {msg}", file=sys.stderr)

@@ -22,6 +22,9 @@ def fault_convention_options(p: argparse.ArgumentParser, d) -> None:
     g.add_argument("--fault-dip", dest="fault_dip_deg", type=float, metavar="DEG",
                    help="fault dip: displacement = throw / sin(dip) for fault rock, CSP along the "
                         f"fault (default: {d.field.fault_dip_deg:g})")
+    g.add_argument("--smear-clay-min", dest="smear_clay_min", type=float, metavar="FRACTION",
+                   help="least clay fraction of a shale or heterolith layer to count as a smear "
+                        f"source bed in SSF and CSP (default: {d.field.smear_clay_min:g})")
     g.add_argument("--water-depth", dest="water_depth_m", type=float, metavar="M",
                    help="water depth: burial is measured below the sea floor (default: from the "
                         "LAS header, else the surface at sea level)")
@@ -32,6 +35,10 @@ def fault_convention_options(p: argparse.ArgumentParser, d) -> None:
     g.add_argument("--closure", dest="closure_m", type=float, metavar="M",
                    help="structural closure that caps every column (default: none; columns over "
                         f"{d.capacity.unconstrained_column_m:g} m flagged unconstrained)")
+    g.add_argument("--closures", dest="closures_file", metavar="FILE",
+                   help="CSV of well, closure_m: the closure of the trap at each well, used "
+                        "instead of --closure for the wells it lists (pairs: a closure_m column "
+                        "in the pairs file comes first; faults: closure_m in the faults file)")
     g.add_argument("--unconstrained-column", dest="unconstrained_column_m", type=float, metavar="M",
                    help=f"column flagged unconstrained without a closure (default: {d.capacity.unconstrained_column_m:g})")
     for opt, dest, unit in (("--calibration-ift", "calibration_ift_mn_m", "MN/M"),

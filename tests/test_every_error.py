@@ -377,6 +377,15 @@ def cases(tmp: Path) -> list:
                                                                       "OTHER,1,2,sand\n")))
     add(lambda: tune.rock_reference(screened, label_curve="NOPE"))
 
+    # the closures file (closure per well) and a pair's closure
+    from logprep.io import closures
+
+    for name, text in {"k_neg.csv": "well,closure_m\nW-1,-40\n", "k_nan.csv": "well,closure_m\nW-1,tall\n",
+                       "k_twice.csv": "well,closure_m\nW-1,100\nW 1,200\n",
+                       "k_cols.csv": "well,height\nW-1,100\n", "k_name.csv": "well,closure_m\n,100\n"}.items():
+        add(lambda p=_write(tmp, name, text): closures.read_closures(p))
+    add(lambda: pairs.read_pairs(_write(tmp, "p_closure.csv", "footwall,hangingwall,shift_m,closure_m\nA,B,20,0\n")))
+
     # the command line
     from logprep.cli import build_parser
 

@@ -126,6 +126,27 @@ def tables_batch(tmp_path_factory, example_dir):
     return out
 
 
+def test_python_batch_writes_the_overview(tables_batch):
+    # screen_paths (the notebook's batch) ends with the field overview, as the CLI does
+    page = (tables_batch / "overview.html").read_text(encoding="utf-8")
+    assert (tables_batch / "overview.pdf").read_bytes().startswith(b"%PDF")
+    for name in ("HRM-4", "HRM-5", "NOT-A-WELL"):
+        assert name in page
+    assert "CAUTION" in page
+
+
+def test_python_batch_overview_off_and_bad_locations(tmp_path, example_dir):
+    out = tmp_path / "no-overview"
+    report = screen_paths([example_dir / "HRM-5.las"], out, sheets=False, field=False, overview=False)
+    assert report.overview == {} and (out / "summary.csv").is_file()
+    assert not (out / "overview.html").exists() and not (out / "overview.pdf").exists()
+    bad = tmp_path / "wells.csv"
+    bad.write_text("name;colour\nA;red\n")
+    with pytest.raises(LogprepError, match="wells.csv"):
+        screen_paths([example_dir / "HRM-5.las"], tmp_path / "bad-loc", sheets=False, locations=bad)
+    assert not (tmp_path / "bad-loc" / "summary.csv").exists()  # refused before any well
+
+
 def test_rows_recount_the_tables(tables_batch):
     rows = {r.name: r for r in overview_rows(tables_batch)}
     assert set(rows) == {"HRM-4", "HRM-5", "NOT-A-WELL"}

@@ -99,3 +99,53 @@ def test_all_sand_column_has_no_smear():
     L = layers([0, 30, 60], ["sand", "sand"])
     ssf, csp = smear_fields(L, np.arange(0, 61.0), throw_axis_m(30, 1.0))
     assert np.isinf(ssf).all() and (csp == 0).all()
+
+
+# ----------------------------------------------------------------------------- clay source beds
+# Source beds by clay fraction: a shale or heterolith layer whose clay fraction (after the
+# Vsh-to-clay step) is at least the cut-off counts with its full thickness (the published SSF
+# and CSP take bed thickness, no clay weighting: Lindsay et al. 1993; Bouvier et al. 1989).
+# Default cut-off 0.40: clay smears above about 40 % clay (Fisher & Knipe 1998, value from memory).
+MIXED = Layers([0, 40, 50, 60, 65], [40, 50, 60, 65, 100], [0.1, 0.5, 0.1, 0.9, 0.1],
+               ["sand", "heterolith", "sand", "shale", "sand"])
+
+
+def test_heterolith_above_the_clay_cut_off_is_a_source_bed():
+    # worked by hand: z = 80, t = 50; slipped interval (30, 80) holds the heterolith 40-50
+    # (10 m, mid 45, clay 0.5) and the shale 60-65 (5 m, mid 62.5).  Both pass 0.40:
+    # SSF = 50 / 10 = 5; CSP = 100/35 + 100/15 + 25/17.5 + 25/32.5 = 11.721612 m.
+    ssf, csp = smear_at(MIXED, 80.0, 50.0)
+    assert float(ssf) == pytest.approx(5.0)
+    assert float(csp) == pytest.approx(100 / 35 + 100 / 15 + 25 / 17.5 + 25 / 32.5, rel=1e-12)
+    assert float(csp) == pytest.approx(11.721612, abs=1e-6)
+
+
+def test_clay_step_decides_which_beds_smear():
+    from logprep.fault.clayfraction import clay_layers
+
+    # Vcl = 0.6 Vsh: the heterolith drops to clay 0.30 (< 0.40), the shale keeps 0.54.
+    # Worked by hand: only the 5 m shale: SSF = 50 / 5 = 10; CSP = 25/17.5 + 25/32.5 = 2.197802 m.
+    clay = clay_layers(MIXED, "shale_fraction", 0.6)
+    ssf, csp = smear_at(clay, 80.0, 50.0)
+    assert float(ssf) == pytest.approx(10.0)
+    assert float(csp) == pytest.approx(25 / 17.5 + 25 / 32.5, rel=1e-12)
+    # the same with the cut-off raised to 0.6 on Vcl = Vsh
+    ssf6, csp6 = smear_at(MIXED, 80.0, 50.0, clay_min=0.6)
+    assert float(ssf6) == pytest.approx(10.0) and float(csp6) == pytest.approx(float(csp), rel=1e-12)
+    # fields and windows follow the same rule
+    f_ssf, f_csp = smear_fields(clay, np.array([80.0]), np.array([50.0]), dtype=np.float64)
+    assert f_ssf[0, 0] == pytest.approx(10.0) and f_csp[0, 0] == pytest.approx(float(csp), rel=1e-12)
+    w = sand_windows(clay, 60.0)
+    cross = w[(w["footwall_layer"] == 4) & (w["hangingwall_layer"] == 0)]
+    sm = window_smear(clay, cross, 60.0)
+    # beds between sands 0 and 4 that smear: only the shale (5 m): SSF = throw / 5
+    assert sm["ssf_min"].iloc[0] == pytest.approx(cross["throw_min_m"].iloc[0] / 5.0)
+
+
+def test_clay_cut_off_is_compared_at_a_stated_rounding():
+    from logprep.fault.smear import source_beds
+
+    # 0.6 x (2/3) is 0.39999999999999997 in floating point: a bed of exactly 40 % clay counts
+    L = Layers([0.0, 10.0], [10.0, 20.0], [0.6 * (2 / 3), 0.1], ["heterolith", "sand"])
+    assert L.vsh[0] < 0.4
+    assert source_beds(L, 0.4).tolist() == [0]

@@ -73,6 +73,7 @@ class CapacityParams:
     ground_elevation_m: float | None = None
     uplift_m: float = 0.0
     closure_m: float | None = None
+    closure_source: str = "--closure"
     unconstrained_column_m: float = UNCONSTRAINED_COLUMN_M
     co2_pressure_factor: float = 1.0
     fault_dip_deg: float = DEFAULT_FAULT_DIP_DEG
@@ -287,19 +288,28 @@ def seal_capacity_table(windows: pd.DataFrame, layers: Layers, params: CapacityP
                         no_seal=(VERDICTS[0], SELF_VERDICT))
 
 
-def seal_capacity_step(well: WellLog, layers: Layers, windows: pd.DataFrame, params: CapacityParams,
-                       length_unit: str = "m") -> tuple[pd.DataFrame, str]:
-    """Seal-capacity columns for the windows (see the functions above) and a note on the
-    depths used for burial, pressure and temperature, the closure and the CO2 density."""
+def well_reference(well: WellLog, params: CapacityParams) -> tuple[float | None, str, float, str]:
+    """``(datum_m, datum_note, surface_m, surface_note)`` of a well: the elevation of its depth
+    reference (None without one) and of its sea floor or ground (m above sea level), each
+    with where it came from (:func:`~logprep.fault.envelope.depth_datum`,
+    :func:`~logprep.fault.burial.surface_elevation_m`)."""
     datum, source = depth_datum(well)
     surface, surface_note = surface_elevation_m(
         well.header, getattr(well, "header_units", {}), getattr(well, "depth_unit", "M"),
         water_depth_m=params.water_depth_m, ground_elevation_m=params.ground_elevation_m)
+    return datum, source, surface, surface_note
+
+
+def seal_capacity_step(well: WellLog, layers: Layers, windows: pd.DataFrame, params: CapacityParams,
+                       length_unit: str = "m") -> tuple[pd.DataFrame, str]:
+    """Seal-capacity columns for the windows (see the functions above) and a note on the
+    depths used for burial, pressure and temperature, the closure and the CO2 density."""
+    datum, source, surface, surface_note = well_reference(well, params)
     ref = ("depth as logged taken below sea level (no elevation in the LAS header)" if datum is None
            else f"depth below sea level = logged depth - {source}")
     parts = [burial_describe(surface_note, params.uplift_m, params.max_burial_m)
              + ("" if params.max_burial_m is not None else f"; {ref}"),
-             closure_describe(params.closure_m, params.unconstrained_column_m),
+             closure_describe(params.closure_m, params.unconstrained_column_m, params.closure_source),
              co2_describe(params)]
     table = seal_capacity_table(windows, layers, params, datum_m=datum or 0.0,
                                 surface_elevation_m=surface, length_unit=length_unit)

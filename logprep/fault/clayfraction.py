@@ -3,7 +3,9 @@
 SGR is the clay fraction of the rock that has slipped past a point (Yielding, Freeman &
 Needham 1997); a gamma-ray log gives a shale volume, and shale is not all clay: average
 shales hold about 60 % clay minerals, the rest silt-size quartz, feldspar and carbonate
-(Shaw & Weaver 1965; value from memory, not verified).  The step is a registry of
+(Shaw & Weaver 1965, abstract seen: X-ray analyses of about 400 shales average 60.9 % clay
+minerals, 30.8 % quartz, 4.5 % feldspar, 3.6 % carbonate; for the 300 best-identified
+samples 64.1 +- 9.4 % clay).  The step is a registry of
 conversions (:data:`CLAY_CONVERSIONS`), each ``Vcl = f(Vsh, shale_clay_fraction)``:
 
 ``shale_fraction``
@@ -51,7 +53,7 @@ CLAY_CONVERSIONS: dict[str, Callable] = {"shale_fraction": shale_fraction_clay}
 
 DEFAULT_SHALE_CLAY_FRACTION = 1.0
 """Clay fraction of pure shale by default: 1, Vsh taken as the clay fraction (see the
-module notes; about 0.6 for an average shale, Shaw & Weaver 1965, from memory)."""
+module notes; 0.609 for the average shale of Shaw & Weaver 1965)."""
 
 
 def check_shale_clay_fraction(value: float) -> None:

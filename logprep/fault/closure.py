@@ -9,7 +9,10 @@ says which limited it (:data:`LIMITS`):
 ``fault rock``
     the fault rock's capillary pressure (the closure is larger or not given);
 ``closure``
-    the structural closure given with ``--closure``;
+    the structural closure, the most specific one given: the pair's (``closure_m`` in the
+    pairs file) or the named fault's (faults file), else the well's (closures file; for a
+    pair or fault the footwall well's, whose sand traps), else the run's (``--closure``);
+    ``closure_m`` on each row is the closure used (NaN: none);
 ``leak``
     the window's minimum SGR is below the leak threshold: the pressure envelope is not
     meant to apply to such a fault (it leaks), so no sealing column is reported (0 m);
@@ -33,7 +36,8 @@ LIMITS = ("fault rock", "closure", "leak", "self")
 UNCONSTRAINED_COLUMN_M = 1000.0
 """Column (m) above which a column without a closure is flagged unconstrained."""
 FLUIDS = ("oil", "gas", "co2")
-CLOSURE_COLUMNS = ["column_oil_limit", "column_gas_limit", "column_co2_limit", "column_unconstrained"]
+CLOSURE_COLUMNS = ["column_oil_limit", "column_gas_limit", "column_co2_limit", "column_unconstrained",
+                   "closure_m"]
 """Columns added to ``juxtapositions.csv`` after the capacity columns, in order."""
 
 
@@ -88,12 +92,14 @@ def with_closure(table: pd.DataFrame, closure_m: float | None = None, *,
         if f"column_{fluid}_ft" in out:
             out[f"column_{fluid}_ft"] = col / 0.3048
     out["column_unconstrained"] = (closure_m is None) & (longest > unconstrained_column_m)
+    out["closure_m"] = np.full(len(out), np.nan if closure_m is None else float(closure_m))
     return out
 
 
-def describe(closure_m: float | None, unconstrained_column_m: float) -> str:
-    """One line for the sheet: which closure capped the columns."""
+def describe(closure_m: float | None, unconstrained_column_m: float, source: str = "--closure") -> str:
+    """One line for the sheet: which closure capped the columns and where it came from
+    (``source``: ``--closure``, or the closures, pairs or faults file and its row)."""
     if closure_m is None:
-        return (f"no structural closure given (--closure): columns are what the fault rock could "
+        return (f"no structural closure given ({source}): columns are what the fault rock could "
                 f"hold; over {unconstrained_column_m:g} m flagged unconstrained")
-    return f"columns capped at the structural closure of {closure_m:g} m (--closure)"
+    return f"columns capped at the structural closure of {closure_m:g} m ({source})"

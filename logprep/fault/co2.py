@@ -10,9 +10,16 @@ with Washburn's wetting term; Washburn 1921), so the same rock holds CO2 against
 with interfacial tensions ``gamma`` (mN/m) and contact angles ``theta`` (degrees, through
 the water) of the calibration system and of CO2-brine.  Defaults (:data:`DEFAULTS`):
 calibration 30 mN/m and 0 deg (hydrocarbon-brine on water-wet rock, a common figure for
-oil-brine; from memory), CO2-brine 26 mN/m and 30 deg (Chiquet, Broseta & Thibeau 2007
-measured about 25-30 mN/m above 10 MPa and angles of 0-40 deg on mica and quartz; from
-memory, not verified): a factor 0.751.  Set them from local measurements where they exist.
+oil-brine; from memory, no published value found to cite), CO2-brine 26 mN/m and 30 deg
+(Chiquet, Broseta & Thibeau 2007 measured about 25-30 mN/m above 10 MPa and angles of
+0-40 deg on mica and quartz; from memory, not verified): a factor 0.751.  A published check
+on the angle (abstract seen): on smooth quartz the water-CO2 contact angle is 0 deg at
+0.1 MPa and rises with pressure and temperature to 35 deg at 296 K and 56 deg at 343 K at
+20 MPa ("Influence of temperature and pressure on quartz-water-CO2 contact angle and
+CO2-water interfacial tension", J. Colloid Interface Sci. 441, 59-64, 2015), so 30 deg is at
+the water-wet end of measured values and warm, deep sites may hold less CO2 than the default
+says; brine-CO2 interfacial tensions at storage conditions are tabulated by Chalbaud et al.
+(2009), whose values were not seen.  Set all four from local measurements where they exist.
 
 References
 ----------
@@ -20,6 +27,12 @@ References
 2. Chiquet, P., Broseta, D. and Thibeau, S. (2007). Wettability alteration of caprock
    minerals by carbon dioxide. Geofluids 7, 117-122.
 3. Bretan, P., Yielding, G. and Jones, H. (2003). AAPG Bulletin 87(3), 397-413.
+4. Influence of temperature and pressure on quartz-water-CO2 contact angle and CO2-water
+   interfacial tension (2015). Journal of Colloid and Interface Science 441, 59-64
+   (abstract seen; authors not checked).
+5. Chalbaud, C., Robin, M., Lombard, J-M., Martin, F., Egermann, P. and Bertin, H. (2009).
+   Interfacial tension measurements and wettability evaluation for geological CO2 storage.
+   Advances in Water Resources 32, 98-109.
 """
 
 from __future__ import annotations

@@ -17,16 +17,24 @@ import pandas as pd
 
 from logprep.fault import faultrock
 from logprep.fault.closure import with_closure
+from logprep.fault.burial import burial_depth_m
+from logprep.fault.clayfraction import clay_layers
 from logprep.fault.capacity import (
-    CAPACITY_COLUMNS, CapacityParams, _shallowest_contact_m, contact_ends, verdict, window_throws,
+    _TEXT_COLUMNS, CAPACITY_COLUMNS, CapacityParams, _co2_density, _shallowest_contact_m, contact_ends,
+    verdict, window_throws,
 )
-from logprep.fault.envelope import (
-    FLUIDS, co2_density_kgm3, envelope_c, fault_zone_pressure_bar, geothermal_temperature_k,
-    hydrostatic_pressure_pa, leak_point_column_m,
-)
+from logprep.fault.envelope import FLUIDS, envelope_c, fault_zone_pressure_bar, leak_point_m
+from logprep.fault.geometry import displacement_m
 from logprep.fault.twowell import two_well_sgr_pct
 from logprep.model import Layers
 from logprep.units import LENGTH_UNITS
+
+
+def pair_clay_layers(fw: Layers, hw: Layers, field) -> tuple[Layers, Layers]:
+    """Both wells' blocked columns with ``vsh`` replaced by the clay fraction of
+    ``field`` (a :class:`~logprep.fault.settings.FieldSettings`), as one well's fault stage
+    does (:mod:`logprep.fault.clayfraction`): what pair SGR, columns and fault rock read."""
+    return tuple(clay_layers(x, field.clay_conversion, field.shale_clay_fraction) for x in (fw, hw))
 
 
 def footwall_frame(w, shift_m: float) -> pd.Series:
@@ -49,13 +57,18 @@ def contact_breaks_m(fw: Layers, hw: Layers, shift_m: float, throw_m: float, sli
     return np.concatenate(out)
 
 
-def pair_window_columns_m(fw: Layers, hw: Layers, shift_m: float, w_fw, c: float, drho_kgm3,
-                          throw_m, slip_source: str, sgr_scale_pct: float):
-    """Leak-point column (m, from the contact top) of a pair window at each throw for each
-    density contrast, shape ``(len(drho), len(throw))``; ``w_fw`` in the footwall frame."""
+def pair_leak_points(fw: Layers, hw: Layers, shift_m: float, w_fw, c: float, drho_kgm3, throw_m,
+                     slip_source: str, sgr_scale_pct: float):
+    """``(column_m, leak_depth_m, leak_sgr_pct)`` of a pair window at each throw for each
+    density contrast, each of shape ``(len(drho), len(throw))``: the leak-point column from
+    the contact top, the footwall depth of the leak point and the SGR there (``w_fw`` in the
+    footwall frame).  The contact is cut where SGR changes slope, and each piece is solved
+    exactly by :func:`logprep.fault.envelope.leak_point_m`."""
     top, base, _, _ = contact_ends(w_fw, throw_m)
     drho = np.atleast_1d(np.asarray(drho_kgm3, float))
     out = np.full((drho.size, len(top)), np.inf)
+    z_leak = np.full(out.shape, np.nan)
+    s_leak = np.full(out.shape, np.nan)
     for j, (t, z0, z1) in enumerate(zip(np.asarray(throw_m, float), top, base)):
         br = contact_breaks_m(fw, hw, shift_m, t, slip_source)
         zs = np.unique(np.concatenate(([z0, z1], br[(br > z0) & (br < z1)])))
@@ -64,33 +77,57 @@ def pair_window_columns_m(fw: Layers, hw: Layers, shift_m: float, w_fw, c: float
         s = two_well_sgr_pct(fw, hw, shift_m, zs, np.full(zs.size, t), slip_source)
         if not np.isfinite(s).all():
             continue
-        col = leak_point_column_m(zs[:-1, None], zs[1:, None], s[:-1, None], s[1:, None], c,
+        col, where = leak_point_m(zs[:-1, None], zs[1:, None], s[:-1, None], s[1:, None], c,
                                   drho[None, :], sgr_scale_pct)
-        out[:, j] = (col + (zs[:-1, None] - z0)).min(axis=0)
-    return out
+        from_top = col + (zs[:-1, None] - z0)
+        i = np.argmin(from_top, axis=0)  # the piece holding the least column, per fluid
+        f = np.arange(drho.size)
+        out[:, j] = from_top[i, f]
+        z_leak[:, j] = where[i, f]
+        span = zs[1:] - zs[:-1]
+        k = np.where(span > 0, (s[1:] - s[:-1]) / np.where(span > 0, span, 1.0), 0.0)
+        s_leak[:, j] = s[:-1][i] + k[i] * (z_leak[:, j] - zs[:-1][i])
+    return out, z_leak, s_leak
 
 
-def _pair_window_capacity(fw, hw, shift_m, w, p: CapacityParams, datum_m, co2_rho, slip_source):
+def pair_window_columns_m(fw: Layers, hw: Layers, shift_m: float, w_fw, c: float, drho_kgm3,
+                          throw_m, slip_source: str, sgr_scale_pct: float):
+    """Leak-point column (m, from the contact top) of a pair window at each throw for each
+    density contrast, shape ``(len(drho), len(throw))``; ``w_fw`` in the footwall frame."""
+    return pair_leak_points(fw, hw, shift_m, w_fw, c, drho_kgm3, throw_m, slip_source, sgr_scale_pct)[0]
+
+
+def _pair_window_capacity(fw, hw, shift_m, w, p: CapacityParams, datum_m, surface_m, slip_source):
+    """One pair window's :data:`~logprep.fault.capacity.CAPACITY_COLUMNS`, with the meanings
+    of :func:`logprep.fault.capacity.seal_capacity_table` (depths in the footwall well)."""
     w_fw = footwall_frame(w, shift_m)
     t = window_throws(w_fw, p.n_throws)
-    burial = p.max_burial_m if p.max_burial_m is not None else max(
-        _shallowest_contact_m(w_fw) - datum_m + p.uplift_m, 0.0)
+    burial = p.max_burial_m if p.max_burial_m is not None else float(
+        burial_depth_m(_shallowest_contact_m(w_fw) - datum_m, surface_m, p.uplift_m))
     c = float(envelope_c(burial, p.class_bounds_m, p.class_c))
-    drho = [p.rho_brine_kgm3 - r for r in (p.rho_oil_kgm3, p.rho_gas_kgm3, co2_rho)]
+    co2_rho = _co2_density(w_fw, p, datum_m, surface_m)
+    drho = np.array([p.rho_brine_kgm3 - r for r in (p.rho_oil_kgm3, p.rho_gas_kgm3, co2_rho)])
     drho[2] /= p.co2_pressure_factor  # CO2-brine capillary pressure (logprep.fault.co2)
     top, base, _, _ = contact_ends(w_fw, t)
+    col_t, z_leak, s_leak = pair_leak_points(fw, hw, shift_m, w_fw, c, drho, t, slip_source, p.sgr_scale_pct)
     # columns from the crest of the trapping (footwall) sand, as for one well
-    cols = (pair_window_columns_m(fw, hw, shift_m, w_fw, c, drho, t, slip_source, p.sgr_scale_pct)
-            + (top - float(w_fw["footwall_top_m"]))[None, :]).min(axis=1)
+    crest = float(w_fw["footwall_top_m"])
+    from_crest = col_t + (top - crest)[None, :]
+    j = np.argmin(from_crest, axis=1)
+    cols = from_crest[np.arange(3), j]
+    jo = int(j[0])
+    leak_sgr = float(s_leak[0, jo])
     s_ends = two_well_sgr_pct(fw, hw, shift_m, np.concatenate([top, base]), np.concatenate([t, t]),
                               slip_source)
     tt = np.concatenate([t, t])
     d_m = float(np.max(tt[s_ends <= np.nanmin(s_ends) + 1e-9])) if np.isfinite(s_ends).any() \
         else float(t[-1])
-    sgr_frac = float(w["sgr_min_pct"]) / 100.0
-    tf = float(faultrock.fault_rock_thickness_m(d_m))
-    k_m = float(faultrock.manzocchi_permeability_md(sgr_frac, d_m))
+    disp = float(displacement_m(d_m, p.fault_dip_deg))
+    sgr_frac = float(np.clip(w["sgr_min_pct"] / 100.0, 0.0, 1.0))
+    tf = float(faultrock.fault_rock_thickness_m(disp))
+    k_m = float(faultrock.manzocchi_permeability_md(sgr_frac, disp))
     z_f = p.faulting_depth_m if p.faulting_depth_m is not None else burial
+    k_s = float(faultrock.sperrevik_permeability_md(sgr_frac, burial, z_f))
     return {
         "burial_depth_m": burial,
         "fzp_bar": float(fault_zone_pressure_bar(w["sgr_min_pct"], burial, sgr_scale_pct=p.sgr_scale_pct,
@@ -99,36 +136,37 @@ def _pair_window_capacity(fw, hw, shift_m, w, p: CapacityParams, datum_m, co2_rh
         "verdict": str(verdict(w["sgr_min_pct"], p.leak_below_pct, p.seal_from_pct)),
         "co2_density_kgm3": co2_rho,
         "fault_rock_throw_m": d_m, "fault_rock_thickness_m": tf,
-        "fault_rock_perm_md": k_m,
-        "fault_rock_perm_sperrevik_md": float(faultrock.sperrevik_permeability_md(sgr_frac, burial, z_f)),
+        "fault_rock_perm_md": k_m, "fault_rock_perm_sperrevik_md": k_s,
         "trans_multiplier": float(faultrock.transmissibility_multiplier(tf, k_m, p.matrix_perm_md,
                                                                         p.cell_length_m)),
+        "fault_rock_outside_calibration": faultrock.calibration_note(
+            sgr_frac, disp, burial, k_s, k_m, p.matrix_perm_md),
+        "fault_rock_displacement_m": disp,
+        "crest_depth_m": crest, "leak_throw_m": float(t[jo]), "leak_depth_m": float(z_leak[0, jo]),
+        "leak_sgr_pct": leak_sgr,
+        "leak_fzp_bar": float(10.0 ** (leak_sgr / p.sgr_scale_pct - c)),
     }
 
 
 def pair_seal_capacity_table(windows: pd.DataFrame, fw: Layers, hw: Layers, shift_m: float,
                              params: CapacityParams = CapacityParams(), *, datum_m: float = 0.0,
-                             slip_source: str = "footwall", length_unit: str = "m") -> pd.DataFrame:
+                             surface_elevation_m: float = 0.0, slip_source: str = "footwall",
+                             length_unit: str = "m") -> pd.DataFrame:
     """The pair ``windows`` (:func:`logprep.fault.twowell.two_well_windows`) with
-    :data:`~logprep.fault.capacity.CAPACITY_COLUMNS` added, as one well's are.
+    :data:`~logprep.fault.capacity.CAPACITY_COLUMNS` and the closure columns added, with
+    the meanings of one well's (:func:`logprep.fault.capacity.seal_capacity_table`).
 
-    ``datum_m`` is the footwall well's elevation of its depth reference above sea level
-    (burial, pressure and temperature are taken on the footwall well's depths, where the
-    contacts are).
+    Depths of the capacity columns (``crest_depth_m``, ``leak_depth_m``) are the footwall
+    well's, where the contacts are; ``datum_m`` and ``surface_elevation_m`` are the footwall
+    well's elevation of its depth reference and of its sea floor or ground (m above sea
+    level): burial, pressure and temperature are taken there.
     """
     out = windows.copy()
-    rows = []
-    for _, w in windows.iterrows():
-        rho = params.rho_co2_kgm3
-        if params.co2_density_mode == "eos":
-            z_ss = _shallowest_contact_m(footwall_frame(w, shift_m)) - datum_m
-            rho = float(co2_density_kgm3(
-                hydrostatic_pressure_pa(z_ss, params.rho_brine_kgm3),
-                geothermal_temperature_k(z_ss, params.surface_temp_c, params.geothermal_gradient_c_per_km)))
-        rows.append(_pair_window_capacity(fw, hw, shift_m, w, params, datum_m, rho, slip_source))
+    rows = [_pair_window_capacity(fw, hw, shift_m, w, params, datum_m, surface_elevation_m, slip_source)
+            for _, w in windows.iterrows()]
     extra = pd.DataFrame(rows, columns=CAPACITY_COLUMNS, index=windows.index)
     for col in CAPACITY_COLUMNS:
-        out[col] = extra[col] if len(windows) else pd.Series(dtype=object if col == "verdict" else float)
+        out[col] = extra[col] if len(windows) else pd.Series(dtype=object if col in _TEXT_COLUMNS else float)
     if length_unit == "ft":
         for fluid in FLUIDS:
             out[f"column_{fluid}_ft"] = out[f"column_{fluid}_m"] / LENGTH_UNITS["ft"]

@@ -15,6 +15,7 @@ from logprep.fault.co2 import DEFAULTS as CO2_CAPILLARY, co2_pressure_factor
 from logprep.fault.geometry import DEFAULT_FAULT_DIP_DEG, check_fault_dip
 from logprep.fault.envelope import CO2_DENSITY_MODES
 from logprep.fault.sgr import SGR_FIELD_SOURCES
+from logprep.fault.smear import SMEAR_SOURCE_CLAY_MIN, check_smear_clay_min
 from logprep.fault.twowell import SLIP_SOURCES
 from logprep.units import LENGTH_UNITS
 
@@ -57,7 +58,7 @@ class FieldSettings:
     shale_clay_fraction : float
         Clay fraction of pure shale (``Vcl = shale_clay_fraction x Vsh``).  Default 1: Vsh
         is taken as the clay fraction, as the published SGR calibrations did; about 0.6 for
-        an average shale (Shaw & Weaver 1965, from memory).
+        an average shale (60.9 % clay minerals, Shaw & Weaver 1965).
     heterolith_reservoir_ntg : float or None
         Screen heteroliths whose net-to-gross is at least this as reservoir beside the
         sands (None: sands only).
@@ -65,6 +66,10 @@ class FieldSettings:
         Fault dip (degrees): displacement along the fault ``throw / sin(dip)`` for the
         fault rock, and CSP smear distances along the fault.  Default 60, the Andersonian
         dip of normal faults (Anderson 1951).
+    smear_clay_min : float
+        Least clay fraction (after the Vsh-to-clay step) of a shale or heterolith layer for it
+        to count as a smear source bed in SSF and CSP.  Default 0.40: clay smears form from
+        rocks above about 40 % clay (Fisher & Knipe 1998, from memory).
     """
 
     throw_max_m: float = 300.0
@@ -76,9 +81,11 @@ class FieldSettings:
     shale_clay_fraction: float = DEFAULT_SHALE_CLAY_FRACTION
     heterolith_reservoir_ntg: float | None = None
     fault_dip_deg: float = DEFAULT_FAULT_DIP_DEG
+    smear_clay_min: float = SMEAR_SOURCE_CLAY_MIN
 
     def __post_init__(self) -> None:
         require_finite_fields(self)
+        check_smear_clay_min(self.smear_clay_min)
         if self.clay_conversion not in CLAY_CONVERSIONS:
             raise SettingsError(f"unknown clay conversion {self.clay_conversion!r}; use one of "
                                 f"{', '.join(CLAY_CONVERSIONS)}")

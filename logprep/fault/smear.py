@@ -1,8 +1,19 @@
 """Shale smear indicators over the triangle diagram and per sand-sand window.
 
 Source beds
-    The **shale layers of the blocked column** (lithology ``shale``); heteroliths and
-    sands are not counted.  A source bed has *passed* a point of the fault at footwall
+    The published definitions count shale (clay) source beds with their thickness: SSF the
+    throw over one shale bed's thickness (Lindsay et al. 1993), CSP the sum of the squared
+    thicknesses of the clay source beds over their smear distances (Bouvier et al. 1989;
+    Fulljames et al. 1997); neither weights a bed by its clay content.  A blocked layer is
+    therefore a source bed, with its full thickness, when it is fine-grained (lithology
+    ``shale`` or ``heterolith``, not a sand or another rock class) and its **clay fraction**
+    (the ``vsh`` of the column given, which the fault stage has passed through the Vsh-to-clay
+    step of :mod:`logprep.fault.clayfraction`) is at least ``clay_min``.  Default
+    :data:`SMEAR_SOURCE_CLAY_MIN` = 0.40: rocks above about 40 % clay deform into clay
+    smears, below it into phyllosilicate-framework fault rocks or cataclasites (Fisher &
+    Knipe 1998; from memory, not verified).  The clay fraction is compared after rounding
+    to :data:`SOURCE_CLAY_DECIMALS` decimals, so float noise does not decide a bed.  A
+    source bed has *passed* a point of the fault at footwall
     depth ``z`` and throw ``t`` when it overlaps the slipped interval ``(z - t, z)`` (for a
     reverse fault, ``(z, z - t)``): its footwall cut-off lies above the point and its
     hanging-wall cut-off below it (normal fault), so smear from either can reach the point.
@@ -34,6 +45,8 @@ References
 3. Fulljames, J.R., Zijerveld, L.J.J. and Franssen, R.C.M.W. (1997). Fault seal processes:
    systematic analysis of fault seals over geological and production time scales. NPF
    Special Publication 7, 51-59.
+4. Fisher, Q.J. and Knipe, R.J. (1998). Fault sealing processes in siliciclastic sediments.
+   Geological Society, London, Special Publications 147, 117-134.
 """
 
 from __future__ import annotations
@@ -41,6 +54,7 @@ from __future__ import annotations
 import numpy as np
 import pandas as pd
 
+from logprep.errors import SettingsError
 from logprep.model import Layers
 from logprep.fault.sgr import contact_polygon
 
@@ -68,9 +82,32 @@ def clay_smear_potential_m(thickness_m, distance_m, axis=-1):
     return np.sum(h * h / d, axis=axis)
 
 
-def source_beds(layers: Layers) -> np.ndarray:
-    """Indices of the source beds: the shale layers."""
-    return np.flatnonzero(np.array(layers.lithology) == "shale")
+SMEAR_SOURCE_CLAY_MIN = 0.40
+"""Least clay fraction of a source bed (Fisher & Knipe 1998, from memory; see the notes)."""
+SOURCE_LITHOLOGIES = ("shale", "heterolith")
+"""Layer lithologies that can be source beds (fine-grained; sands and other rock classes not)."""
+SOURCE_CLAY_DECIMALS = 6
+"""Decimals of the clay fraction compared with ``clay_min``."""
+
+
+def check_smear_clay_min(value: float) -> None:
+    if not 0 < value <= 1:
+        raise SettingsError(f"--smear-clay-min must lie within 0 (exclusive) and 1 (got {value:g}); "
+                            "give the least clay fraction of a smearing bed, e.g. 0.4")
+
+
+def source_beds(layers: Layers, clay_min: float = SMEAR_SOURCE_CLAY_MIN) -> np.ndarray:
+    """Indices of the source beds: fine-grained layers (:data:`SOURCE_LITHOLOGIES`) whose
+    clay fraction (``layers.vsh``, 0-1) is at least ``clay_min``.
+
+    >>> L = Layers([0, 10, 20, 30], [10, 20, 30, 40], [0.9, 0.5, 0.3, 0.45],
+    ...            ["shale", "heterolith", "heterolith", "sand"])
+    >>> source_beds(L, 0.4).tolist(), source_beds(L, 0.6).tolist()
+    ([0, 1], [0])
+    """
+    fine = np.isin(np.array(layers.lithology, dtype=object), SOURCE_LITHOLOGIES)
+    clay = np.round(np.asarray(layers.vsh, float), SOURCE_CLAY_DECIMALS)
+    return np.flatnonzero(fine & (clay >= clay_min))
 
 
 def _bed_terms(top, base, z, t):
@@ -86,7 +123,8 @@ def _bed_terms(top, base, z, t):
     return passed, thick, term
 
 
-def smear_at(layers: Layers, depth_m, throw_m) -> tuple[np.ndarray, np.ndarray]:
+def smear_at(layers: Layers, depth_m, throw_m,
+             clay_min: float = SMEAR_SOURCE_CLAY_MIN) -> tuple[np.ndarray, np.ndarray]:
     """SSF and CSP (m) at footwall depths and throws (broadcast), one column.
 
     Returns ``(ssf, csp_m)`` as float64 arrays; see the module notes for the definitions.
@@ -94,14 +132,15 @@ def smear_at(layers: Layers, depth_m, throw_m) -> tuple[np.ndarray, np.ndarray]:
     z, t = np.broadcast_arrays(np.asarray(depth_m, float), np.asarray(throw_m, float))
     tmax = np.zeros(z.shape)
     csp = np.zeros(z.shape)
-    for i in source_beds(layers):
+    for i in source_beds(layers, clay_min):
         passed, thick, term = _bed_terms(layers.top_m[i], layers.base_m[i], z, t)
         tmax = np.where(passed, np.maximum(tmax, thick), tmax)
         csp += np.where(passed, term, 0.0)
     return shale_smear_factor(t, tmax), csp
 
 
-def smear_fields(layers: Layers, depth_m, throw_m, dtype=np.float32):
+def smear_fields(layers: Layers, depth_m, throw_m, dtype=np.float32,
+                 clay_min: float = SMEAR_SOURCE_CLAY_MIN):
     """SSF and CSP (m) on the grid ``depth_m`` (rows) x ``throw_m`` (columns).
 
     A bed passes a point ``(z, t > 0)`` only for ``top < z < base + t``, so each bed is
@@ -119,19 +158,19 @@ def smear_fields(layers: Layers, depth_m, throw_m, dtype=np.float32):
     tmax = np.zeros((z.size, t.size))
     csp = np.zeros((z.size, t.size))
     if t.size and (t[0] < 0 or np.any(np.diff(t) <= 0) or np.any(np.diff(z) <= 0)):
-        _smear_dense(layers, z, t, tmax, csp)
+        _smear_dense(layers, z, t, tmax, csp, clay_min)
     elif t.size and z.size:
-        _smear_staircase(layers, z, t, tmax, csp)
+        _smear_staircase(layers, z, t, tmax, csp, clay_min)
     ssf = shale_smear_factor(t[None, :], tmax)
     return ssf.astype(dtype), csp.astype(dtype)
 
 
-def _smear_dense(layers: Layers, z, t, tmax, csp) -> None:
+def _smear_dense(layers: Layers, z, t, tmax, csp, clay_min: float = SMEAR_SOURCE_CLAY_MIN) -> None:
     """Every source bed over the rows it can reach (``z`` within its top and base plus
     the largest throw) and every throw: the general case of :func:`smear_fields`."""
     reach = float(np.abs(t).max(initial=0.0))
     increasing = bool(np.all(np.diff(z) > 0))
-    for i in source_beds(layers):
+    for i in source_beds(layers, clay_min):
         top, base = layers.top_m[i], layers.base_m[i]
         r0, r1 = np.searchsorted(z, [top - reach, base + reach], side="left") if increasing \
             else (0, z.size)
@@ -145,7 +184,7 @@ _SMEAR_BLOCK_CELLS = 1 << 16
 """Cells of one row block of :func:`_smear_staircase` (fits a core's cache)."""
 
 
-def _smear_staircase(layers: Layers, z, t, tmax, csp) -> None:
+def _smear_staircase(layers: Layers, z, t, tmax, csp, clay_min: float = SMEAR_SOURCE_CLAY_MIN) -> None:
     """:func:`_smear_dense` for increasing throws >= 0, restricted to where a bed can
     have passed: rows ``top < z < base + t_max``, throws ``t > z - base``.  The tests of
     :func:`_bed_terms` still decide every point (the ranges are only made no narrower)."""
@@ -154,7 +193,7 @@ def _smear_staircase(layers: Layers, z, t, tmax, csp) -> None:
         return
     t_last = float(t[-1])
     block = max(8, _SMEAR_BLOCK_CELLS // t.size)
-    for i in source_beds(layers):
+    for i in source_beds(layers, clay_min):
         top, base = layers.top_m[i], layers.base_m[i]
         thick = base - top
         mid = 0.5 * (top + base)
@@ -220,26 +259,28 @@ def _window_extremes(layers: Layers, w, throw_max_m: float, n_edge: int,
 
 
 def window_smear(layers: Layers, windows: pd.DataFrame, throw_max_m: float,
-                 n_edge: int = 201, csp_factor: float = 1.0) -> pd.DataFrame:
+                 n_edge: int = 201, csp_factor: float = 1.0,
+                 clay_min: float = SMEAR_SOURCE_CLAY_MIN) -> pd.DataFrame:
     """Columns :data:`SMEAR_COLUMNS` for each row of ``windows`` (same index):
     ``ssf_min``/``ssf_max`` (inf where no source bed lies between the two sands, e.g. a
     sand against itself) and ``csp_min_m``/``csp_max_m`` (metres; 0 there).  CSP is
     multiplied by ``csp_factor`` (:func:`logprep.fault.geometry.csp_factor`: distances along
     a dipping fault and true bed thicknesses instead of vertical ones)."""
-    shale = source_beds(layers)  # once per well: the windows only look up their range
+    shale = source_beds(layers, clay_min)  # once per well: the windows only look up their range
     rows = [_window_extremes(layers, w, throw_max_m, n_edge, shale) for w in windows.itertuples()]
     out = pd.DataFrame(rows, columns=SMEAR_COLUMNS, index=windows.index, dtype=float)
     out[["csp_min_m", "csp_max_m"]] *= csp_factor
     return out
 
 
-def with_smear_fields(grid, layers: Layers, csp_factor: float = 1.0):
+def with_smear_fields(grid, layers: Layers, csp_factor: float = 1.0,
+                      clay_min: float = SMEAR_SOURCE_CLAY_MIN):
     """A copy of an :class:`~logprep.fault.sgr.SgrField` carrying ``ssf`` and ``csp_m`` on its
     axes (float32; NaN where the SGR is NaN, i.e. the slipped interval leaves the log);
     CSP times ``csp_factor`` as in :func:`window_smear`."""
     from dataclasses import replace
 
-    ssf, csp = smear_fields(layers, grid.depth_m, grid.throw_m)
+    ssf, csp = smear_fields(layers, grid.depth_m, grid.throw_m, clay_min=clay_min)
     if csp_factor != 1.0:
         csp *= np.float32(csp_factor)
     off = np.isnan(grid.sgr_pct)

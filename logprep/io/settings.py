@@ -26,6 +26,9 @@ class InputSettings:
         Folder of deviation surveys, ``<well name or file stem>.csv`` (MD, inclination,
         azimuth; see :mod:`logprep.io.survey`).  A well with a survey is screened on TVD by
         minimum curvature; a well without one is taken as vertical.
+    closures_file : str or None
+        Structural closure per well (CSV ``well, closure_m``, see :mod:`logprep.io.closures`):
+        a well it lists takes its closure instead of ``closure_m`` (``--closure``).
     bed_dip_deg : float
         Bed dip (degrees) for the true stratigraphic thickness ``tst_m`` in ``layers.csv``.
     bed_dip_azimuth_deg : float
@@ -43,6 +46,7 @@ class InputSettings:
     depth_unit: str | None = None
     tops_file: str | None = None
     survey_dir: str | None = None
+    closures_file: str | None = None
     bed_dip_deg: float = 0.0
     bed_dip_azimuth_deg: float = 0.0
     well_time_limit_s: float = 900.0

@@ -36,6 +36,15 @@ SGR_CMAP = "cividis"  # perceptually uniform and colour-blind safe
 NO_DATA = "#F2F2F2"
 WINDOW_INK = "#D55E00"  # Okabe & Ito vermillion: sand-sand window outlines
 MAX_DRAWN_ROWS = 700
+FIELD_COLOURS = 250
+"""Colour steps of a field image (0.4 % SGR apart: finer than the eye tells on the bar).
+With the no-data grey it keeps an image within 256 colours, which the PDF stores as an
+indexed image, a third of the size of a true-colour one."""
+
+
+def field_cmap(name: str):
+    """The colormap ``name`` in :data:`FIELD_COLOURS` steps, no-data cells :data:`NO_DATA`."""
+    return matplotlib.colormaps[name].resampled(FIELD_COLOURS).with_extremes(bad=NO_DATA)
 CLASS_HATCHES = {1: "////", 2: "...."}
 """Juxtaposition classes hatched on the triangle diagram (codes of
 :data:`logprep.fault.juxtaposition.JUXTAPOSITION_CLASSES`): sand/sand and sand/heterolith."""
@@ -84,9 +93,9 @@ def draw_field(ax, grid, *, threshold_pct: float, throw_max_m: float, windows=No
     jux = grid.juxtaposition[::step]
     dt = throw[1] - throw[0] if throw.size > 1 else 1.0
     dz = depth[1] - depth[0] if depth.size > 1 else 1.0
-    cmap = matplotlib.colormaps[SGR_CMAP].with_extremes(bad=NO_DATA)
+    cmap = field_cmap(SGR_CMAP)
     im = ax.imshow(np.ma.masked_invalid(sgr), cmap=cmap, vmin=0, vmax=100, aspect="auto",
-                   interpolation="nearest", origin="upper", rasterized=True,
+                   interpolation="nearest", origin="upper",
                    extent=(throw[0] - dt / 2, throw[-1] + dt / 2, depth[-1] + dz / 2, depth[0] - dz / 2))
     for code, hatch in CLASS_HATCHES.items() if contourable(jux) else ():
         cf = ax.contourf(throw, depth, (jux == code).astype(np.float32), levels=[0.5, 1.5],

@@ -159,8 +159,9 @@ def fault_page(res, grid, settings) -> Figure:
         ax_l.set_title("Spread of minimum SGR per pair", fontsize=9, loc="left", pad=12)
         ax_c = fig.add_subplot(gs[0, 3])
         _spread_axis(ax_c, rows, "column_oil_m", "oil column (m), log scale", log=True)
-        if spec.closure_m is not None:
-            ax_c.axvline(spec.closure_m, color=RANGE_INK, lw=0.8, ls="--")
+        closure = getattr(res, "closure_m", spec.closure_m)
+        if closure is not None:
+            ax_c.axvline(closure, color=RANGE_INK, lw=0.8, ls="--")
         ax_c.set_title("Spread of oil column per pair", fontsize=9, loc="left", pad=12)
         ax_p = fig.add_subplot(gs[0, 4])
         ax_p.barh(y + 0.18, [r["p_juxtaposed"] for r in rows], height=0.34, color=JUXT_INK, label="P(juxtaposed)")
@@ -206,6 +207,15 @@ def draw_sensitivity(ax, res, t, keep) -> None:
                  fontsize=9, loc="left")
 
 
+def closure_text(res) -> str:
+    """Which closure capped the fault's columns, and where it came from."""
+    closure = getattr(res, "closure_m", res.spec.closure_m)
+    source = getattr(res, "closure_source", "faults file")
+    if closure is None:
+        return f"no closure ({source}): columns uncapped"
+    return f"closure {closure:g} m caps the columns ({source})"
+
+
 def footer_text(res, settings) -> str:
     spec = res.spec
     n = len(res.draws["throw_m"])
@@ -213,7 +223,7 @@ def footer_text(res, settings) -> str:
             f"fraction, envelope constant and burial drawn (spreads in the settings file [uncertainty] table).\n"
             f"P10/P50/P90: values 10/50/90 % of the juxtaposed realisations fall below.  Verdict rule: seal where "
             f"minimum SGR >= {settings.sgr_threshold_pct:g} %.  Fault dip {spec.fault_dip_deg:g} deg"
-            f"{'' if spec.closure_m is None else f'; closure {spec.closure_m:g} m caps the columns'}; "
+            f"; {closure_text(res)}; "
             f"tie shift {res.shift_m:.2f} m.")
 
 

@@ -191,6 +191,6 @@ def log_page(result) -> list[Figure]:
     draw_window_table(fig.add_subplot(right[1]),
                       window_rows(result.windows, numbers, result.settings.capacity.sgr_threshold_pct,
                                   result.settings.capacity.length_unit, tops=getattr(result, "tops", None)),
-                      title)
+                      title, verdict_key=True)
     draw_footer(fig, result)
     return [fig]

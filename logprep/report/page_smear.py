@@ -14,7 +14,7 @@ from matplotlib.figure import Figure
 from logprep.fault.sgr import contact_polygon
 from logprep.fault.smear import SSF_INCOMPLETE
 from logprep.report.draw import (
-    INK, MAX_DRAWN_ROWS, NO_DATA, PAGE_SIZE_IN, WINDOW_INK, draw_contours, draw_footer, field_ylim,
+    INK, MAX_DRAWN_ROWS, PAGE_SIZE_IN, WINDOW_INK, draw_contours, draw_footer, field_cmap, field_ylim,
 )
 
 SSF_RANGE = (0.0, 2 * SSF_INCOMPLETE)
@@ -45,8 +45,8 @@ def _image(ax, grid, values, cmap, norm):
     dt = throw[1] - throw[0] if throw.size > 1 else 1.0
     dz = depth[1] - depth[0] if depth.size > 1 else 1.0
     im = ax.imshow(np.ma.masked_invalid(np.where(np.isinf(v), 1e30, v)),
-                   cmap=matplotlib.colormaps[cmap].with_extremes(bad=NO_DATA), norm=norm,
-                   aspect="auto", interpolation="nearest", origin="upper", rasterized=True,
+                   cmap=field_cmap(cmap), norm=norm,
+                   aspect="auto", interpolation="nearest", origin="upper",
                    extent=(throw[0] - dt / 2, throw[-1] + dt / 2, depth[-1] + dz / 2, depth[0] - dz / 2))
     ax.set_ylim(*field_ylim(depth, dz))
     ax.set_xlim(min(0.0, throw[0]), throw[-1])

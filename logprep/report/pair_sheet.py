@@ -12,7 +12,7 @@ import pandas as pd
 from matplotlib.figure import Figure
 from matplotlib.patches import Patch
 
-from logprep.fault.pair_capacity import footwall_frame, pair_window_columns_m
+from logprep.fault.pair_capacity import footwall_frame, pair_clay_layers, pair_window_columns_m
 from logprep.report.draw import (
     LITHOLOGY_COLOURS, PAGE_SIZE_IN, ROWS_PAGE1, caution_box, draw_field, draw_sgr_colourbar,
     draw_window_table, riskiest_windows, window_rows,
@@ -36,6 +36,7 @@ class PairScreening:
     windows: pd.DataFrame
     grid: object
     settings: object
+    closure_note: str = ""
 
     @property
     def title(self) -> str:
@@ -49,7 +50,8 @@ def pair_footer(fig, pair: PairScreening) -> None:
     text = (f"Footwall {fw.source} (sha256 {fw.sha256[:12]}...); hanging wall {hw.source} (sha256 "
             f"{hw.sha256[:12]}...); {tie}: hanging-wall depth = footwall depth - throw + "
             f"{pair.shift_m:.2f} m; slipped interval from the {pair.settings.field.pair_slip_source}; "
-            "settings as for the single wells (logprep-settings.toml).")
+            "settings as for the single wells (logprep-settings.toml)"
+            + (f"; {pair.closure_note}." if pair.closure_note else "."))
     fig.text(0.015, 0.058, wrap_to_width(text, 0.95 * fig.get_figwidth() * 72, 7), fontsize=7,
              va="bottom", family="monospace", parse_math=False)
     caution_box(fig)
@@ -141,8 +143,10 @@ def pair_capacity_page(pair: PairScreening) -> Figure:
                                     lambda r: footwall_frame(r, pair.shift_m), axis=1)
                                 if len(pair.windows) else pair.windows)
 
+    fw_clay, hw_clay = pair_clay_layers(pair.fw.layers, pair.hw.layers, s.field)
+
     def columns(w, c, drho, t):
-        return pair_window_columns_m(pair.fw.layers, pair.hw.layers, pair.shift_m, w, c, [drho], t,
+        return pair_window_columns_m(fw_clay, hw_clay, pair.shift_m, w, c, [drho], t,
                                      s.field.pair_slip_source, s.capacity.envelope_sgr_scale_pct)[0]
 
     return seal_capacity_page(as_result, columns_fn=columns, footer=lambda f: pair_footer(f, pair))[0]

@@ -10,11 +10,16 @@ from logprep.report.layout import MONO_ADVANCE_EM
 TABLE_HEAD = ["#", "footwall\nsand (m)", "hanging-wall\nsand (m)", "throw\nrange (m)",
               "SGR\nmin %", "SGR\nmax %", "oil\ncolumn", "verdict"]
 FORMATION_HEAD = "formations\nfootwall / hw"
-VERDICT_COLOURS = {"leak": "#F6C9A8", "uncertain": "#FBE8A6", "seal": "#CFE8F7"}
-"""Cell shades of the verdict column (light tints of Okabe & Ito vermilion, yellow, sky blue)."""
+VERDICT_COLOURS = {"leak": "#F6C9A8", "uncertain": "#FBE8A6", "seal": "#CFE8F7", "self": "#E0AFCA"}
+"""Cell shades of the verdict column: light tints of the Okabe & Ito (2008) colour-blind-safe
+palette, vermilion (leak), yellow (uncertain), sky blue (seal) and reddish purple (``self``, a
+sand against itself).  The ``self`` tint is the darkest in grey print (WCAG relative
+luminance 0.51 against 0.64-0.81 for the others) and black text on it keeps a contrast
+ratio of about 11:1 (WCAG 2.0 asks 7:1 for the highest level)."""
 MIN_FONT_PT = 5.0
 
-__all__ = ["FORMATION_HEAD", "MONO_ADVANCE_EM", "TABLE_HEAD", "VERDICT_COLOURS", "draw_window_table",
+__all__ = ["FORMATION_HEAD", "MONO_ADVANCE_EM", "TABLE_HEAD", "VERDICT_COLOURS", "draw_verdict_key",
+           "draw_window_table",
            "formation_at", "table_head", "window_rows"]
 
 
@@ -82,13 +87,34 @@ def table_layout(rows, head, width_pt: float, height_pt: float, fontsize: float,
     return size, widths, blocks, per_block
 
 
-def draw_window_table(ax, rows, title, *, fontsize: float = 7.5, head=None, blocks: int = 1) -> list:
+def draw_verdict_key(ax, y: float, fontsize: float = 7.0) -> None:
+    """The key of the verdict tints, one line at height ``y`` (axes fraction, top of the
+    line) from the left of ``ax``: each verdict word of :data:`VERDICT_COLOURS` on its own
+    tint, ``self`` explained."""
+    fig = ax.get_figure()
+    width_pt = ax.get_position().width * fig.get_figwidth() * 72.0
+    char_w = fontsize * MONO_ADVANCE_EM / width_pt
+    style = {"family": "DejaVu Sans Mono", "fontsize": fontsize, "va": "top", "ha": "left",
+             "parse_math": False}
+    label = "verdict tints:"
+    ax.text(0.0, y, label, **style)
+    x = (len(label) + 2) * char_w
+    for v, colour in VERDICT_COLOURS.items():
+        word = f"{v} (sand against itself)" if v == "self" else v
+        ax.text(x, y, word, bbox={"facecolor": colour, "edgecolor": "#999999", "pad": 1.2,
+                                  "linewidth": 0.4}, **style)
+        x += (len(word) + 2) * char_w
+
+
+def draw_window_table(ax, rows, title, *, fontsize: float = 7.5, head=None, blocks: int = 1,
+                      verdict_key: bool = False) -> list:
     """A table of ``rows`` under ``head`` (default :data:`TABLE_HEAD`, or with the
     formations column when the rows have it) in ``ax``, in ``blocks`` side-by-side blocks
     (0: as many as fit).  Returns the rows that did not fit.
 
     Each row is one line of fixed-width text, so a long table costs one text per row.
-    Rows are zebra-shaded and the verdict field tinted by :data:`VERDICT_COLOURS`.
+    Rows are zebra-shaded and the verdict field tinted by :data:`VERDICT_COLOURS`; with
+    ``verdict_key`` the key of the tints is drawn on a line below the table.
     """
     from matplotlib.collections import LineCollection, PatchCollection
     from matplotlib.patches import Rectangle
@@ -148,4 +174,6 @@ def draw_window_table(ax, rows, title, *, fontsize: float = 7.5, head=None, bloc
         shown += len(chunk)
     ax.add_collection(PatchCollection(shades, match_original=True, linewidths=0))
     ax.add_collection(LineCollection(rules, colors="#BBBBBB", linewidths=0.5))
+    if verdict_key:  # below the longest block
+        draw_verdict_key(ax, top - (min(len(rows), per_block) + 0.6) * row_h, fontsize=min(7.0, size))
     return rows[shown:]

@@ -16,6 +16,7 @@ from pathlib import Path
 
 from logprep import __version__
 from logprep.errors import LogprepError
+from logprep.io.closures import read_closures
 from logprep.io.survey import check_survey_dir, unmatched_survey_warnings
 from logprep.io.tops import read_tops
 from logprep.report.writers import prepare_out_dir, well_folder_name, write_summary
@@ -58,6 +59,9 @@ class BatchReport:
     scan_line: str | None = None
     warnings: list[str] = field(default_factory=list)
     """One-line warnings about shared inputs (a survey that matches no well)."""
+    overview: dict[str, Path] = field(default_factory=dict)
+    """The field overview written after the wells (``overview.html``, ``overview.pdf`` ->
+    path); empty when it was turned off."""
 
     @property
     def failures(self) -> list[dict]:
@@ -101,6 +105,7 @@ def run_settings_sha256(settings: ScreenSettings, options: OutputOptions, faults
     return settings_sha256(groups, {
         "logprep": __version__, "outputs": options.to_dict(),
         "tops": tree_sha256(settings.input.tops_file), "surveys": tree_sha256(settings.input.survey_dir),
+        **({"closures": tree_sha256(settings.input.closures_file)} if settings.input.closures_file else {}),
         "fault_work": _pickle_sha256((faults, spreads)) if faults or spreads else ""})
 
 
@@ -134,6 +139,8 @@ def screen_paths(
     faults=None,
     spreads=None,
     time_limit_s: float | None = None,
+    overview: bool = True,
+    locations: str | Path | None = None,
 ) -> BatchReport:
     """Screen every LAS file under ``paths`` and write results below ``out_dir``.
 
@@ -154,6 +161,12 @@ def screen_paths(
     in that many worker processes, ``backend`` on a Dask cluster (results are the same);
     ``sheets=False`` skips the PDF/PNG sheets, ``field=False`` the SGR field file and
     ``field_smear`` adds the smear fields to it.
+
+    After the wells, the field overview (``overview.html`` to open in a browser and the
+    one-page ``overview.pdf``, see :mod:`logprep.report.overview`) is written in
+    ``out_dir`` from what the folder holds, well locations from the LAS headers or the
+    ``locations`` file; ``overview=False`` leaves it out (remake it at any time with
+    :func:`logprep.report.overview_files.write_overview` or ``logprep overview DIR``).
     """
     settings = settings if settings is not None else ScreenSettings()
     backend = backend if backend is not None else Backend(jobs=jobs)
@@ -164,12 +177,18 @@ def screen_paths(
         raise LogprepError(f"no .las files found in {', '.join(map(str, paths))}"
                            + (f" ({scan.summary_line()})" if scan.skipped else "")
                            + "; name LAS files or folders that hold them")
+    if overview and locations is not None:
+        from logprep.io.locations import read_locations
+
+        read_locations(locations)  # a bad locations file is found before any well runs
     # inputs shared by every well are checked once, before any well is screened
     prepare_out_dir(out)
     clean_leftovers(out)
     tops = read_tops(settings.input.tops_file) if settings.input.tops_file else None
     if settings.input.survey_dir:
         check_survey_dir(settings.input.survey_dir)
+    if settings.input.closures_file:
+        read_closures(settings.input.closures_file)
     limit = settings.input.well_time_limit_s if time_limit_s is None else time_limit_s
     options = OutputOptions(sheets=sheets, field=field, field_smear=field_smear, time_limit_s=limit)
     run_sha = run_settings_sha256(settings, options, faults, spreads)
@@ -203,8 +222,9 @@ def screen_paths(
         progress.start(len(files), report.skipped)
         # workers read by absolute path (their working folder may differ) but name the
         # file as given; the survey folder likewise
-        worker_settings = settings.updated(survey_dir=readable_path(settings.input.survey_dir)) \
-            if settings.input.survey_dir else settings
+        worker_settings = settings.updated(**{k: readable_path(getattr(settings.input, k))
+                                              for k in ("survey_dir", "closures_file")
+                                              if getattr(settings.input, k)})
         if backend.uses_dask or backend.jobs > 1:
             todo = biggest_first(todo, files)
         tasks = [(given[i], readable_path(files[i]), folders[i]) for i in todo]
@@ -242,6 +262,10 @@ def screen_paths(
     if settings.input.survey_dir:
         names = [r["well"] for r in rows] + [Path(r["source"]).stem for r in rows]
         report.warnings = unmatched_survey_warnings(settings.input.survey_dir, names)
+    if overview:
+        from logprep.report.overview_files import write_overview
+
+        report.overview = write_overview(out, locations)
     return report
 
 

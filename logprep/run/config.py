@@ -32,7 +32,7 @@ TUNE_KEYS = ("sand_sweep", "shale_sweep", "bed_sweep")
 """Keys of the ``[tune]`` table: lists of values, or ``"start:stop:step"`` strings."""
 
 
-PATH_KEYS = ("tops_file",)
+PATH_KEYS = ("tops_file", "closures_file")
 """Settings that name files: relative paths in a settings file are taken from the file's
 folder, and a written file holds them absolute."""
 

@@ -146,6 +146,15 @@ def _tie_shift_m(spec: FaultSpec, fw, hw) -> float:
     return float(spec.shift_m)
 
 
+def fault_closure_source(spec: FaultSpec, fw) -> str:
+    """Where a fault's closure comes from: its own row in the faults file, else the
+    footwall well's (its closures-file row or ``--closure``)."""
+    if spec.closure_m is not None:
+        return f"faults file, fault {spec.name}"
+    source = getattr(fw, "closure_source", "--closure")
+    return f"footwall well, {source}" if source != "--closure" else source
+
+
 def fault_case(spec: FaultSpec, fw, hw, settings) -> FaultCase:
     """The :class:`~logprep.fault.uncertainty.FaultCase` of a fault from its screened wells
     (``hw`` None for a fault within one well)."""
@@ -159,7 +168,8 @@ def fault_case(spec: FaultSpec, fw, hw, settings) -> FaultCase:
         rho = co2_density_kgm3(hydrostatic_pressure_pa(z_ss, cap.rho_brine_kgm3),
                                geothermal_temperature_k(z_ss, cap.surface_temp_c, cap.geothermal_gradient_c_per_km))
         cap = replace(cap, rho_co2_kgm3=float(rho))
-    closure = spec.closure_m if spec.closure_m is not None else setting(settings, "closure_m")
+    # the fault's own closure, else the footwall well's (closures file or --closure)
+    closure = spec.closure_m if spec.closure_m is not None else fw.settings.capacity.closure_m
     return FaultCase(
         fw_model=column_model(fw), hw_model=column_model(hw) if hw is not None else None,
         shift_m=_tie_shift_m(spec, fw, hw) if hw is not None else 0.0,
@@ -173,7 +183,7 @@ def base_inputs(spec: FaultSpec, fw, hw, settings) -> BaseInputs:
         throw=(spec.throw_dist, spec.throw_m, spec.throw_low_m, spec.throw_high_m),
         gr_clean=(s.gr_clean, (hw or fw).settings.gr_clean), gr_shale=(s.gr_shale, (hw or fw).settings.gr_shale),
         transform=s.transform, sand_cutoff=s.sand_cutoff, shale_cutoff=s.shale_cutoff,
-        min_bed_m=s.min_bed_m, clay_fraction=float(setting(s, "clay_fraction", 1.0)),
+        min_bed_m=s.min_bed_m, clay_fraction=float(s.shale_clay_fraction),
         envelope_scale_pct=s.envelope_sgr_scale_pct)
 
 
@@ -212,6 +222,8 @@ class FaultResult:
     hw_units: tuple = ((), ())
     grid: object = None
     footwall_keys: tuple = ()
+    closure_m: float | None = None
+    closure_source: str = "--closure"
 
 
 def screen_fault(spec: FaultSpec, fw, hw, settings, spreads: Spreads | None = None) -> FaultResult:
@@ -270,7 +282,8 @@ def screen_fault(spec: FaultSpec, fw, hw, settings, spreads: Spreads | None = No
     return FaultResult(spec=spec, table=table, realisations=real, draws=draws, base=det, sensitivity=sens,
                        shift_m=case.shift_m, fw_layers=fw.layers, hw_layers=hw_layers,
                        pair_index=tuple(int(k) for k in show), fw_units=case.units_fw,
-                       hw_units=case.units_hw)
+                       hw_units=case.units_hw, closure_m=case.closure_m,
+                       closure_source=fault_closure_source(spec, fw))
 
 
 # ----------------------------------------------------------------------------- one well, all throws
@@ -289,7 +302,7 @@ def window_uncertainty(scr, spreads: Spreads | None = None) -> pd.DataFrame:
     spec_throw = ("fixed", s.throw_max_m, None, None)
     base = BaseInputs(throw=spec_throw, gr_clean=(s.gr_clean, s.gr_clean), gr_shale=(s.gr_shale, s.gr_shale),
                       transform=s.transform, sand_cutoff=s.sand_cutoff, shale_cutoff=s.shale_cutoff,
-                      min_bed_m=s.min_bed_m, clay_fraction=float(setting(s, "clay_fraction", 1.0)))
+                      min_bed_m=s.min_bed_m, clay_fraction=float(s.shale_clay_fraction))
     d = draw_inputs(base, spreads)
     units = sand_units(scr.layers)
     nu = len(units[0])

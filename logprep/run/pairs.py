@@ -11,6 +11,7 @@ folder with ``juxtapositions.csv``, ``sgr_field.npz``, ``sheet.pdf`` and ``sheet
 from __future__ import annotations
 
 import math
+from dataclasses import replace
 from pathlib import Path
 from collections.abc import Callable, Iterable
 
@@ -19,8 +20,10 @@ import pandas as pd
 
 from logprep.io.csvtable import parse_number, read_csv_table
 from logprep.errors import LogprepError
-from logprep.fault.envelope import depth_datum
-from logprep.fault.pair_capacity import pair_seal_capacity_table
+from logprep.fault.capacity import well_reference
+from logprep.fault.closure import describe as closure_describe
+from logprep.io.closures import parse_closure_m
+from logprep.fault.pair_capacity import pair_clay_layers, pair_seal_capacity_table
 from logprep.fault.settings import capacity_params
 from logprep.report.writers import (
     csv_bytes, folder_name, pdf_bytes, plain_text, png_bytes, with_window_numbers, write_bytes_atomic,
@@ -35,7 +38,8 @@ PAIRS_SUMMARY_COLUMNS = ["footwall", "hangingwall", "marker", "shift_m", "slip_s
 
 
 def read_pairs(path: str | Path) -> pd.DataFrame:
-    """The pairs CSV as a frame with columns ``footwall, hangingwall, marker, shift_m``."""
+    """The pairs CSV as a frame with columns ``footwall, hangingwall, marker, shift_m,
+    closure_m`` (text; ``closure_m`` optional, blank for none)."""
     path = Path(path)
     df = read_csv_table(path, PairError, "pairs CSV", "--pairs", dtype=str, keep_default_na=False)
     df.columns = [str(c).strip().lower() for c in df.columns]
@@ -43,10 +47,10 @@ def read_pairs(path: str | Path) -> pd.DataFrame:
     if missing or not ({"marker", "shift_m"} & set(df.columns)):
         raise PairError(f"{path}: needs columns footwall, hangingwall and marker and/or shift_m "
                         f"(found {', '.join(df.columns)}); add them to the header line")
-    for c in ("marker", "shift_m"):
+    for c in ("marker", "shift_m", "closure_m"):
         if c not in df.columns:
             df[c] = ""
-    df = df[["footwall", "hangingwall", "marker", "shift_m"]].apply(lambda s: s.str.strip())
+    df = df[["footwall", "hangingwall", "marker", "shift_m", "closure_m"]].apply(lambda s: s.str.strip())
     for k, row in enumerate(df.itertuples(), start=2):
         if not row.footwall or not row.hangingwall:
             raise PairError(f"{path}: line {k}: footwall and hangingwall must both be named; "
@@ -54,6 +58,7 @@ def read_pairs(path: str | Path) -> pd.DataFrame:
         if not row.marker and not row.shift_m:
             raise PairError(f"{path}: line {k}: neither marker nor shift_m given; give a "
                             "marker (with --tops) or a shift_m")
+        parse_closure_m(row.closure_m, f"{path}: line {k}")
         if row.shift_m and not row.marker:
             try:
                 if not math.isfinite(parse_number(row.shift_m)):
@@ -73,16 +78,34 @@ def _find(name: str, files: list[Path], names: dict[Path, str]) -> Path:
                     "LAS file to the command line or fix the name in the pairs file")
 
 
-def pair_windows(fw, hw, shift_m: float, settings) -> pd.DataFrame:
+def pair_closure(pair_closure_text: str, fw, where: str = "pairs file") -> tuple[float | None, str]:
+    """``(closure_m, source)`` of a pair: its own ``closure_m`` (pairs file) when given, else
+    the footwall well's (the well whose sand traps against the fault: its closures-file
+    closure or ``--closure``, as it was screened with)."""
+    own = parse_closure_m(pair_closure_text, where)
+    if own is not None:
+        return own, where
+    fw_closure = fw.settings.capacity.closure_m
+    source = getattr(fw, "closure_source", "--closure")
+    return fw_closure, (f"footwall well, {source}" if source != "--closure" else source)
+
+
+def pair_windows(fw, hw, shift_m: float, settings, closure: tuple[float | None, str] | None = None
+                 ) -> pd.DataFrame:
     """The windows of a pair with their seal-capacity columns and verdicts (as one well's),
     burial taken on the footwall well's depths and datum; ``self_juxtaposed`` is False
-    throughout (two wells: a sand never faces itself)."""
-    windows = two_well_windows(fw.layers, hw.layers, shift_m, settings.field.throw_max_m,
+    throughout (two wells: a sand never faces itself).  ``closure``: ``(closure_m, source)``
+    from :func:`pair_closure` (default: the footwall well's)."""
+    fw_clay, hw_clay = pair_clay_layers(fw.layers, hw.layers, settings.field)
+    windows = two_well_windows(fw_clay, hw_clay, shift_m, settings.field.throw_max_m,
                                settings.field.pair_slip_source)
-    datum, _ = depth_datum(fw.well)
-    table = pair_seal_capacity_table(windows, fw.layers, hw.layers, shift_m,
-                                     capacity_params(settings.capacity, settings.fault_rock),
-                                     datum_m=datum or 0.0, slip_source=settings.field.pair_slip_source,
+    closure_m, source = closure if closure is not None else pair_closure("", fw)
+    params = replace(capacity_params(settings.capacity, settings.fault_rock, settings.field),
+                     closure_m=closure_m, closure_source=source)
+    datum, _, surface, _ = well_reference(fw.well, params)
+    table = pair_seal_capacity_table(windows, fw_clay, hw_clay, shift_m, params,
+                                     datum_m=datum or 0.0, surface_elevation_m=surface,
+                                     slip_source=settings.field.pair_slip_source,
                                      length_unit=settings.capacity.length_unit)
     at = table.columns.get_loc("max_contact_m")
     table.insert(at, "self_juxtaposed", False)
@@ -120,8 +143,6 @@ def pair_task(settings, tops, options, pair: dict, fw_file: tuple[str, str],
 
 def _screen_pair(settings, tops, options, pair, fw_file, hw_file):
     """``(shift_m, windows, files)`` of one pair (see :func:`pair_task`)."""
-    from dataclasses import replace
-
     from logprep.io.las import read_well
     from logprep.run.pipeline import screen_well
 
@@ -138,9 +159,12 @@ def _screen_pair(settings, tops, options, pair, fw_file, hw_file):
     else:
         shift = parse_number(pair["shift_m"])
     check_hanging_wall_down(shift, pair["footwall"], pair["hangingwall"], pair["marker"] or None)
-    windows = pair_windows(fw, hw, shift, settings)
+    closure = pair_closure(pair.get("closure_m", ""), fw,
+                           f"pairs file, {pair['footwall']} / {pair['hangingwall']}")
+    windows = pair_windows(fw, hw, shift, settings, closure)
     step = settings.field.field_depth_step_m or float(np.median(np.diff(fw.depth_m)))
-    grid = two_well_field(fw.layers, hw.layers, shift, throw_max_m=settings.field.throw_max_m,
+    grid = two_well_field(*pair_clay_layers(fw.layers, hw.layers, settings.field), shift,
+                          throw_max_m=settings.field.throw_max_m,
                           throw_step_m=settings.field.field_throw_step_m, depth_step_m=step,
                           slip_source=settings.field.pair_slip_source)
     files = {"juxtapositions.csv": csv_bytes(with_window_numbers(windows))}
@@ -150,8 +174,10 @@ def _screen_pair(settings, tops, options, pair, fw_file, hw_file):
         from logprep.report.pair_sheet import PairScreening, build_pair_sheet
 
         with plain_text():
-            pages = build_pair_sheet(PairScreening(fw, hw, shift, pair["marker"] or "", windows,
-                                                   grid, settings))
+            pages = build_pair_sheet(PairScreening(
+                fw, hw, shift, pair["marker"] or "", windows, grid, settings,
+                closure_note=closure_describe(closure[0], settings.capacity.unconstrained_column_m,
+                                              closure[1])))
             files.update({"sheet.pdf": pdf_bytes(pages), "sheet.png": png_bytes(pages[0])})
     return shift, windows, files
 

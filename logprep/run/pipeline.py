@@ -22,6 +22,7 @@ from logprep.clay.qc import ND_ONLY, any_flag
 from logprep.clay.stage import clay_volume
 from logprep.fault.sgr import SgrField
 from logprep.fault.stage import fault_stage
+from logprep.io.closures import closure_for_well, read_closures_cached
 from logprep.io.las import read_well
 from logprep.io.survey import deviated_well
 from logprep.io.tops import TOPS_COLUMNS, well_tops
@@ -45,7 +46,9 @@ class WellScreening:
     per zone (``picks.csv``); ``gr_clean_line``/``gr_shale_line`` the lines per sample.
     ``gr_clean_api``/``gr_shale_api`` are the whole-well lines, for reference.
     ``survey`` is the deviation survey ``(md_m, inc_deg, azi_deg)`` the depths were put on
-    TVD with (None for a well taken as vertical).
+    TVD with (None for a well taken as vertical).  ``settings.capacity.closure_m`` is the
+    closure the well was screened with and ``closure_source`` where it came from (the
+    closures file and row, or ``--closure``).
     """
 
     well: WellLog
@@ -72,6 +75,7 @@ class WellScreening:
     unusable: dict | None = None
     faults: tuple = ()
     survey: tuple | None = None
+    closure_source: str = "--closure"
 
     @property
     def warnings(self) -> tuple[str, ...]:
@@ -98,11 +102,13 @@ def screen_well(
     ``tops`` is a tops table for any number of wells (see :mod:`logprep.io.tops`); when it
     is None and ``settings.input.tops_file`` is set, that file is read.
     """
+    settings, closure_source = well_closure(well, settings)
     fld, inp = settings.field, settings.input
     well, picks, depth_ref, cv, col, notes, survey = _column_stages(well, settings, tops)
     depth, vsh, filled, layers = cv.depth_m, col.vsh, col.filled, col.layers
     windows, sgr, fault_notes = fault_stage(well, layers, depth, vsh, fld, settings.capacity,
-                                            settings.fault_rock, inp.bed_dip_deg)
+                                            settings.fault_rock, inp.bed_dip_deg,
+                                            closure_source=closure_source)
     notes.extend(fault_notes)
     windows = windows.join(window_footing(windows, layers.filled_fraction, layers.flagged_fraction,
                                           layers.thickness_m, thin_m=settings.layers.thin_bed_m))
@@ -113,7 +119,21 @@ def screen_well(
         qc_flags=cv.qc_flags, picks=cv.picks, gr_clean_line=cv.gr_clean_line,
         gr_shale_line=cv.gr_shale_line, grid=sgr,
         depth_reference=depth_ref, rock=cv.rock, unusable=cv.unusable, survey=survey,
+        closure_source=closure_source,
     )
+
+
+def well_closure(well: WellLog, settings: ScreenSettings) -> tuple[ScreenSettings, str]:
+    """The settings with the well's own closure (``settings.input.closures_file``, matched
+    by WELL name or file stem) in place of ``closure_m``, and where the closure came from
+    (for the sheet).  A well the file does not list keeps ``--closure``."""
+    path = settings.input.closures_file
+    if path:
+        hit = closure_for_well(read_closures_cached(path), well.name, Path(well.source or "").stem)
+        if hit is not None:
+            value, name = hit
+            return settings.updated(closure_m=value), f"{Path(path).name}, well {name}"
+    return settings, "--closure"
 
 
 def _column_stages(well: WellLog, settings: ScreenSettings, tops):

@@ -6,13 +6,9 @@ from __future__ import annotations
 
 from dataclasses import replace
 
-from logprep.fault.capacity import seal_capacity_step
-from logprep.fault.juxtaposition import sand_windows
-from logprep.fault.settings import capacity_params
-from logprep.fault.sgr import sgr_field
-from logprep.fault.smear import window_smear, with_smear_fields
 import numpy as np
 
+from logprep.fault.stage import fault_stage
 from logprep.layers.stage import blocked_column
 from logprep.run.pipeline import WellScreening, qc_flagged
 
@@ -36,12 +32,8 @@ def reblock(result: WellScreening, **changes) -> WellScreening:
     raw = np.where(result.filled, np.nan, result.vsh)
     layers = blocked_column(result.depth_m, raw, lay, forced_m=forced, rock=result.rock,
                             unusable=result.unusable, flagged=qc_flagged(result.qc_flags)).layers
-    windows = sand_windows(layers, fld.throw_max_m)
-    grid = with_smear_fields(sgr_field(layers, result.depth_m, result.vsh, throw_max_m=fld.throw_max_m,
-                                       throw_step_m=fld.field_throw_step_m,
-                                       depth_step_m=fld.field_depth_step_m, source=fld.sgr_field_source),
-                             layers)
-    windows, _ = seal_capacity_step(result.well, layers, windows,
-                                    capacity_params(s.capacity, s.fault_rock), s.capacity.length_unit)
-    windows = windows.join(window_smear(layers, windows, fld.throw_max_m))
+    # the pipeline's own fault stage: clay step, reservoir layers, field, smear, capacity
+    windows, grid, _ = fault_stage(result.well, layers, result.depth_m, result.vsh, fld, s.capacity,
+                                   s.fault_rock, s.input.bed_dip_deg,
+                                   closure_source=getattr(result, "closure_source", "--closure"))
     return replace(result, settings=s, layers=layers, windows=windows, grid=grid)
