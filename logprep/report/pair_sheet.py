@@ -20,7 +20,7 @@ from logprep.report.draw import (
 from logprep.report.layout import wrap_to_width
 from logprep.report.page_capacity import seal_capacity_page
 
-TIE_INK = "#009E73"  # Okabe & Ito bluish green: the tie horizon
+TIE_INK = "#000000"  # black, dash-dot: the tie horizon (no rock class or contour uses this ink and dash)
 
 
 @dataclass(frozen=True)
@@ -86,9 +86,9 @@ def pair_columns_page(pair: PairScreening) -> Figure:
     tie_fw = tie_depth(fw.tops, pair.marker)
     if tie_fw is not None:
         for ax in (ax_f, ax_h):
-            ax.axhline(tie_fw, color=TIE_INK, lw=2.2)
+            ax.axhline(tie_fw, color=TIE_INK, lw=2.2, ls="-.")
         ax_t.plot([0.0, s.field.throw_max_m], [tie_fw, tie_fw + s.field.throw_max_m], color=TIE_INK,
-                  lw=1.2, ls="--")
+                  lw=1.4, ls="-.")
     draw_sgr_colourbar(ax_t, im)
     ax_t.tick_params(labelleft=False)
     ax_t.set_xlabel("Throw of the tie horizon (m); normal fault, hanging wall down")
@@ -99,7 +99,7 @@ def pair_columns_page(pair: PairScreening) -> Figure:
     if tie_fw is not None:
         from matplotlib.lines import Line2D
 
-        handles.append(Line2D([], [], color=TIE_INK, lw=2.2, label=f"tie: {pair.marker}"))
+        handles.append(Line2D([], [], color=TIE_INK, lw=2.2, ls="-.", label=f"tie: {pair.marker}"))
     ax_t.legend(handles=handles, loc="lower left", fontsize=7, framealpha=0.9)
     pair_footer(fig, pair)
     return fig
