@@ -177,20 +177,37 @@ def _window_capacity(layers: Layers, w, p: CapacityParams, datum_m: float, surfa
     s_top = sgr_between_pct(layers, top, top_h)
     s_base = sgr_between_pct(layers, base, base_h)
     col_t, z_leak = leak_point_m(top, base, s_top, s_base, c, drho[:, None], p.sgr_scale_pct)
-    # free-water level at each throw, measured from the crest of the trapping (footwall) sand
-    crest = float(w["footwall_top_m"])
-    from_crest = col_t + (top - crest)[None, :]
-    j = np.argmin(from_crest, axis=1)
-    cols = from_crest[np.arange(3), j]
-    jo = int(j[0])
-    k = (s_base[jo] - s_top[jo]) / (base[jo] - top[jo]) if base[jo] > top[jo] else 0.0
-    leak_sgr = float(s_top[jo] + k * (z_leak[0, jo] - top[jo]))
+    span = base - top
+    k = np.where(span > 0, (s_base - s_top) / np.where(span > 0, span, 1.0), 0.0)
+    s_leak_oil = s_top + k * (z_leak[0] - top)
     # the fault rock at the window's lowest SGR (met at a contact end of a sampled throw)
     # (ties, as for a sand against itself, go to the largest throw: a real fault's rock)
     tt = np.concatenate([t, t])
     s_ends = np.concatenate([s_top, s_base])
     lowest = s_ends <= np.nanmin(s_ends) + 1e-9
     d_m = float(np.max(tt[lowest]))
+    word = SELF_VERDICT if bool(w.get("self_juxtaposed", False)) else str(
+        verdict(w["sgr_min_pct"], p.leak_below_pct, p.seal_from_pct))
+    return capacity_row(w, p, burial=burial, c=c, co2_rho=co2_rho, throw_m=t, top_m=top,
+                        col_t=col_t, z_leak=z_leak, s_leak_oil=s_leak_oil, d_m=d_m, word=word)
+
+
+def capacity_row(w, p: CapacityParams, *, burial: float, c: float, co2_rho: float, throw_m, top_m,
+                 col_t, z_leak, s_leak_oil, d_m: float, word: str) -> dict:
+    """One window's :data:`CAPACITY_COLUMNS` from its leak points, shared by one well's
+    windows and a pair's (:mod:`logprep.fault.pair_capacity`).
+
+    ``col_t`` and ``z_leak`` (shape ``(3, len(throw_m))``, oil, gas, CO2) are the leak-point
+    columns from the contact top ``top_m`` (m) and the leak depths; ``s_leak_oil`` the SGR
+    (%) at the oil leak point of each throw; ``d_m`` the throw (m) of the fault rock at the
+    window's lowest SGR; ``burial`` (m) and ``c`` the envelope's burial and constant.
+    Columns are measured from the crest of the trapping (footwall) sand."""
+    crest = float(w["footwall_top_m"])
+    from_crest = col_t + (top_m - crest)[None, :]
+    j = np.argmin(from_crest, axis=1)
+    cols = from_crest[np.arange(3), j]
+    jo = int(j[0])
+    leak_sgr = float(s_leak_oil[jo])
     disp = float(displacement_m(d_m, p.fault_dip_deg))
     sgr_frac = float(np.clip(w["sgr_min_pct"] / 100.0, 0.0, 1.0))
     tf = float(faultrock.fault_rock_thickness_m(disp))
@@ -198,8 +215,6 @@ def _window_capacity(layers: Layers, w, p: CapacityParams, datum_m: float, surfa
     z_f = p.faulting_depth_m if p.faulting_depth_m is not None else burial
     k_s = float(faultrock.sperrevik_permeability_md(sgr_frac, burial, z_f))
     tm = float(faultrock.transmissibility_multiplier(tf, k_m, p.matrix_perm_md, p.cell_length_m))
-    word = SELF_VERDICT if bool(w.get("self_juxtaposed", False)) else str(
-        verdict(w["sgr_min_pct"], p.leak_below_pct, p.seal_from_pct))
     return {
         "burial_depth_m": burial,
         "fzp_bar": float(fault_zone_pressure_bar(w["sgr_min_pct"], burial, sgr_scale_pct=p.sgr_scale_pct,
@@ -213,7 +228,7 @@ def _window_capacity(layers: Layers, w, p: CapacityParams, datum_m: float, surfa
         "fault_rock_outside_calibration": faultrock.calibration_note(
             sgr_frac, disp, burial, k_s, k_m, p.matrix_perm_md),
         "fault_rock_displacement_m": disp,
-        "crest_depth_m": crest, "leak_throw_m": float(t[jo]), "leak_depth_m": float(z_leak[0, jo]),
+        "crest_depth_m": crest, "leak_throw_m": float(throw_m[jo]), "leak_depth_m": float(z_leak[0, jo]),
         "leak_sgr_pct": leak_sgr,
         "leak_fzp_bar": float(10.0 ** (leak_sgr / p.sgr_scale_pct - c)),
     }

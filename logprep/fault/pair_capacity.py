@@ -15,16 +15,14 @@ from __future__ import annotations
 import numpy as np
 import pandas as pd
 
-from logprep.fault import faultrock
 from logprep.fault.closure import with_closure
 from logprep.fault.burial import burial_depth_m
 from logprep.fault.clayfraction import clay_layers
 from logprep.fault.capacity import (
-    _TEXT_COLUMNS, CAPACITY_COLUMNS, CapacityParams, _co2_density, _shallowest_contact_m, contact_ends,
+    _TEXT_COLUMNS, CAPACITY_COLUMNS, CapacityParams, _co2_density, capacity_row, _shallowest_contact_m, contact_ends,
     verdict, window_throws,
 )
-from logprep.fault.envelope import FLUIDS, envelope_c, fault_zone_pressure_bar, leak_point_m
-from logprep.fault.geometry import displacement_m
+from logprep.fault.envelope import FLUIDS, envelope_c, leak_point_m
 from logprep.fault.twowell import two_well_sgr_pct
 from logprep.model import Layers
 from logprep.units import LENGTH_UNITS
@@ -110,42 +108,14 @@ def _pair_window_capacity(fw, hw, shift_m, w, p: CapacityParams, datum_m, surfac
     drho[2] /= p.co2_pressure_factor  # CO2-brine capillary pressure (logprep.fault.co2)
     top, base, _, _ = contact_ends(w_fw, t)
     col_t, z_leak, s_leak = pair_leak_points(fw, hw, shift_m, w_fw, c, drho, t, slip_source, p.sgr_scale_pct)
-    # columns from the crest of the trapping (footwall) sand, as for one well
-    crest = float(w_fw["footwall_top_m"])
-    from_crest = col_t + (top - crest)[None, :]
-    j = np.argmin(from_crest, axis=1)
-    cols = from_crest[np.arange(3), j]
-    jo = int(j[0])
-    leak_sgr = float(s_leak[0, jo])
     s_ends = two_well_sgr_pct(fw, hw, shift_m, np.concatenate([top, base]), np.concatenate([t, t]),
                               slip_source)
     tt = np.concatenate([t, t])
     d_m = float(np.max(tt[s_ends <= np.nanmin(s_ends) + 1e-9])) if np.isfinite(s_ends).any() \
         else float(t[-1])
-    disp = float(displacement_m(d_m, p.fault_dip_deg))
-    sgr_frac = float(np.clip(w["sgr_min_pct"] / 100.0, 0.0, 1.0))
-    tf = float(faultrock.fault_rock_thickness_m(disp))
-    k_m = float(faultrock.manzocchi_permeability_md(sgr_frac, disp))
-    z_f = p.faulting_depth_m if p.faulting_depth_m is not None else burial
-    k_s = float(faultrock.sperrevik_permeability_md(sgr_frac, burial, z_f))
-    return {
-        "burial_depth_m": burial,
-        "fzp_bar": float(fault_zone_pressure_bar(w["sgr_min_pct"], burial, sgr_scale_pct=p.sgr_scale_pct,
-                                                 class_bounds_m=p.class_bounds_m, class_c=p.class_c)),
-        "column_oil_m": cols[0], "column_gas_m": cols[1], "column_co2_m": cols[2],
-        "verdict": str(verdict(w["sgr_min_pct"], p.leak_below_pct, p.seal_from_pct)),
-        "co2_density_kgm3": co2_rho,
-        "fault_rock_throw_m": d_m, "fault_rock_thickness_m": tf,
-        "fault_rock_perm_md": k_m, "fault_rock_perm_sperrevik_md": k_s,
-        "trans_multiplier": float(faultrock.transmissibility_multiplier(tf, k_m, p.matrix_perm_md,
-                                                                        p.cell_length_m)),
-        "fault_rock_outside_calibration": faultrock.calibration_note(
-            sgr_frac, disp, burial, k_s, k_m, p.matrix_perm_md),
-        "fault_rock_displacement_m": disp,
-        "crest_depth_m": crest, "leak_throw_m": float(t[jo]), "leak_depth_m": float(z_leak[0, jo]),
-        "leak_sgr_pct": leak_sgr,
-        "leak_fzp_bar": float(10.0 ** (leak_sgr / p.sgr_scale_pct - c)),
-    }
+    word = str(verdict(w["sgr_min_pct"], p.leak_below_pct, p.seal_from_pct))
+    return capacity_row(w_fw, p, burial=burial, c=c, co2_rho=co2_rho, throw_m=t, top_m=top,
+                        col_t=col_t, z_leak=z_leak, s_leak_oil=s_leak[0], d_m=d_m, word=word)
 
 
 def pair_seal_capacity_table(windows: pd.DataFrame, fw: Layers, hw: Layers, shift_m: float,
