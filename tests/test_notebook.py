@@ -25,7 +25,8 @@ print("WELL", result.well.name, "WINDOWS", len(current.windows))
 '''
 
 
-def run_notebook(tmp_path, monkeypatch, well=None, checks=False):
+def run_notebook(tmp_path, monkeypatch, well=None, extra_cell=""):
+    """Execute the notebook headless (with ``extra_cell`` appended) and return its outputs."""
     nbformat = pytest.importorskip("nbformat")
     nbclient = pytest.importorskip("nbclient")
     pytest.importorskip("ipykernel")
@@ -37,8 +38,8 @@ def run_notebook(tmp_path, monkeypatch, well=None, checks=False):
     else:
         monkeypatch.delenv("LOGPREP_WELL", raising=False)
     nb = nbformat.read(NOTEBOOK, as_version=4)
-    if checks:
-        nb.cells.append(nbformat.v4.new_code_cell(CHECKS))
+    if extra_cell:
+        nb.cells.append(nbformat.v4.new_code_cell(extra_cell))
     nbclient.NotebookClient(nb, timeout=300, kernel_name="python3",
                             resources={"metadata": {"path": str(tmp_path)}}).execute()
     outputs = [o for c in nb.cells if c.cell_type == "code" for o in c.get("outputs", [])]
@@ -58,7 +59,7 @@ def test_notebook_on_own_well_redraws_only_what_a_slider_changes(tmp_path, monke
     own = tmp_path / "my data" / "MY-WELL.las"  # a well of the user's, outside the package
     own.parent.mkdir()
     shutil.copy(example_dir / "HRM-4.las", own)
-    outputs = run_notebook(tmp_path, monkeypatch, well=own, checks=True)
+    outputs = run_notebook(tmp_path, monkeypatch, well=own, extra_cell=CHECKS)
     text = "".join(o.get("text", "") for o in outputs if o.get("output_type") == "stream")
     assert "WELL HRM-4" in text
 
@@ -96,18 +97,6 @@ def test_notebook_scores_sliders_against_a_description_file(tmp_path, monkeypatc
     desc = tmp_path / "core.csv"
     desc.write_text("top_m,base_m,lithology\n" + "\n".join(rows) + "\n")
     monkeypatch.setenv("LOGPREP_DESCRIPTIONS", str(desc))
-    nbformat = pytest.importorskip("nbformat")
-    nbclient = pytest.importorskip("nbclient")
-    pytest.importorskip("ipykernel")
-    pytest.importorskip("ipywidgets")
-    monkeypatch.setenv("LOGPREP_NOTEBOOK_OUT", str(tmp_path))
-    monkeypatch.setenv("MPLBACKEND", "Agg")
-    monkeypatch.delenv("LOGPREP_WELL", raising=False)
-    nb = nbformat.read(NOTEBOOK, as_version=4)
-    nb.cells.append(nbformat.v4.new_code_cell(ROCK_CHECKS))
-    nbclient.NotebookClient(nb, timeout=300, kernel_name="python3",
-                            resources={"metadata": {"path": str(tmp_path)}}).execute()
-    outputs = [o for c in nb.cells if c.cell_type == "code" for o in c.get("outputs", [])]
-    assert not [o for o in outputs if o.get("output_type") == "error"]
+    outputs = run_notebook(tmp_path, monkeypatch, extra_cell=ROCK_CHECKS)
     text = "".join(o.get("text", "") for o in outputs if o.get("output_type") == "stream")
     assert "ROCK" in text   # the checks of the appended cell ran to the end
