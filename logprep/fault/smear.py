@@ -57,6 +57,7 @@ import pandas as pd
 from logprep.errors import SettingsError
 from logprep.model import Layers
 from logprep.fault.sgr import contact_polygon
+from logprep.fault.smeargrid import smear_grid
 
 SSF_INCOMPLETE = 7.0
 """SSF above which smears may be incomplete (Lindsay et al. 1993)."""
@@ -143,15 +144,16 @@ def smear_fields(layers: Layers, depth_m, throw_m, dtype=np.float32,
                  clay_min: float = SMEAR_SOURCE_CLAY_MIN):
     """SSF and CSP (m) on the grid ``depth_m`` (rows) x ``throw_m`` (columns).
 
-    A bed passes a point ``(z, t > 0)`` only for ``top < z < base + t``, so each bed is
-    worked on over the rows from its top to its base plus the largest throw and, row
-    block by row block, over the throws large enough to reach back to its base: about
-    the area where it has passed.  The work is therefore (cells) x (source beds a throw
-    spans), which is linear in the rows at a fixed throw range; CSP is a sum over the
-    passed beds, so it cannot be cheaper than that.  Values are those of
-    :func:`smear_at` point by point, bit for bit (the same terms added in the same bed
-    order).  Unsorted or negative throws, or depths not increasing, take a plain per-bed
-    pass over all rows and throws.
+    Increasing throws >= 0 on increasing depths cost a constant times the cells (rows x
+    throws): while few source beds pass a point (at most :data:`STAIRCASE_MAX_PASSED` on
+    average, :func:`mean_beds_passed`) each bed is added over the area where it has passed
+    (:func:`_smear_staircase`, bit for bit :func:`smear_at`); with more (large throws),
+    :func:`logprep.fault.smeargrid.smear_grid` reads range maxima, per-row cumulative
+    sums and moment sums of the far beds per hanging-wall depth, equal to :func:`smear_at`
+    within float32 rounding (the same terms added in another order; the far hanging-wall
+    terms as a series truncated at a relative 4e-11).  Unsorted or negative throws, or
+    depths not increasing, take a plain per-bed pass over all rows and throws (cells x
+    source beds).
     """
     z = np.asarray(depth_m, float)
     t = np.asarray(throw_m, float)
@@ -160,7 +162,7 @@ def smear_fields(layers: Layers, depth_m, throw_m, dtype=np.float32,
     if t.size and (t[0] < 0 or np.any(np.diff(t) <= 0) or np.any(np.diff(z) <= 0)):
         _smear_dense(layers, z, t, tmax, csp, clay_min)
     elif t.size and z.size:
-        _smear_staircase(layers, z, t, tmax, csp, clay_min)
+        _smear_sorted(layers, z, t, tmax, csp, clay_min)
     ssf = shale_smear_factor(t[None, :], tmax)
     return ssf.astype(dtype), csp.astype(dtype)
 
@@ -178,6 +180,41 @@ def _smear_dense(layers: Layers, z, t, tmax, csp, clay_min: float = SMEAR_SOURCE
         passed, thick, term = _bed_terms(top, base, z[rows, None], t[None, :])
         np.maximum(tmax[rows], np.where(passed, thick, 0.0), out=tmax[rows])
         csp[rows] += np.where(passed, term, 0.0)
+
+
+STAIRCASE_MAX_PASSED = 12.0
+"""Mean source beds passed per point up to which :func:`_smear_staircase` (cost: points x
+beds passed) is used rather than :func:`logprep.fault.smeargrid.smear_grid` (cost: points
+x a constant); the two take about the same time there on a 2-core machine
+(``bench/bench_scaling.py``)."""
+
+
+def mean_beds_passed(top_m, base_m, depth_m, throw_m) -> float:
+    """Mean number of source beds passed per point of the grid: a bed of thickness ``h``
+    passes the points of a throw column ``t`` over ``h + t`` of depth, so the mean is
+    ``sum(h + mean t) / column length`` (edges ignored)."""
+    length = float(depth_m[-1] - depth_m[0]) if len(depth_m) > 1 else 0.0
+    if length <= 0:
+        return 0.0
+    h = np.asarray(base_m, float) - np.asarray(top_m, float)
+    return float((h.sum() + h.size * np.mean(throw_m)) / length)
+
+
+def _smear_sorted(layers: Layers, z, t, tmax, csp, clay_min: float = SMEAR_SOURCE_CLAY_MIN) -> None:
+    """:func:`_smear_dense` for increasing throws >= 0 and increasing depths, at a cost
+    linear in the cells: the staircase while few beds pass a point
+    (:data:`STAIRCASE_MAX_PASSED`), else :func:`logprep.fault.smeargrid.smear_grid`;
+    ``t = 0`` columns stay empty (nothing has passed)."""
+    c0 = int(np.searchsorted(t, 0.0, side="right"))
+    if c0 == t.size:
+        return
+    src = source_beds(layers, clay_min)
+    if mean_beds_passed(layers.top_m[src], layers.base_m[src], z, t[c0:]) <= STAIRCASE_MAX_PASSED:
+        _smear_staircase(layers, z, t, tmax, csp, clay_min)
+        return
+    tm, cs = smear_grid(layers.top_m[src], layers.base_m[src], z, t[c0:])
+    tmax[:, c0:] = tm
+    csp[:, c0:] = cs
 
 
 _SMEAR_BLOCK_CELLS = 1 << 16
