@@ -91,3 +91,26 @@ def test_pair_sheet_is_complete_and_legible(example_dir):
     for ax in pages[0].axes[:2]:
         ys = [ln.get_ydata()[0] for ln in ax.get_lines()]
         assert any(abs(y - tie) < 1e-9 for y in ys)
+
+
+def test_written_sheet_prints_no_math_markup(example_dir):
+    """The sheet draws every text as plain text (file names are never math); tick labels of
+    the logarithmic axes (column heights, CSP colour bar) must then be plain numbers, not
+    markup such as ``$\\mathdefault{10^{3}}$``.  Read from the written PDF with PDFium.
+    (Plain tick labels of a log axis: common practice, no source.)"""
+    import pypdfium2 as pdfium
+
+    from logprep.report.writers import render_well
+
+    result = screen_file(example_dir / "HRM-1.las", ScreenSettings())
+    files = render_well(result, build_sheet)
+    doc = pdfium.PdfDocument(files["sheet.pdf"])
+    texts = [doc[i].get_textpage().get_text_range() for i in range(len(doc))]
+    for k, text in enumerate(texts, start=1):
+        assert "mathdefault" not in text and "$" not in text, f"page {k} prints math markup"
+    capacity = next(t for t in texts if "seal capacity" in t)
+    assert "1000" in capacity.split() or "100" in capacity.split(), "log axis labels missing"
+    smear = next(t for t in texts if "smear indicators" in t)
+    assert {"0.1", "1", "10", "100", "1000"} <= set(smear.split()), "CSP colour bar labels missing"
+    png = files["sheet.png"]
+    assert png.startswith(b"\x89PNG")
