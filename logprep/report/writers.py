@@ -4,6 +4,7 @@ interrupted run never leaves a half-written file and earlier results stay until 
 from __future__ import annotations
 
 import io
+import logging
 from contextlib import contextmanager
 import os
 import re
@@ -92,15 +93,30 @@ def csv_bytes(frame: pd.DataFrame) -> bytes:
         "utf-8", errors="backslashreplace")
 
 
+class _NoWeightNotice(logging.Filter):
+    """Drops matplotlib's notice that the built-in fonts' "Medium" weight stands in for
+    "normal" (they have no other; the text is drawn as intended)."""
+
+    def filter(self, record: logging.LogRecord) -> bool:
+        return "Failed to find font weight" not in record.getMessage()
+
+
 @contextmanager
 def _missing_glyphs_quiet():
     """A context in which matplotlib's one-warning-per-character about letters missing from
     the font (a well or file named in a script the font lacks) is not printed: those
-    letters are drawn as boxes, and the tables keep the names intact."""
-    with warnings.catch_warnings():
-        warnings.filterwarnings("ignore", message=r"Glyph \d+ .*missing from font",
-                                category=UserWarning)
-        yield
+    letters are drawn as boxes, and the tables keep the names intact.  The notice of
+    :class:`_NoWeightNotice` is dropped too."""
+    quiet = _NoWeightNotice()
+    log = logging.getLogger("matplotlib.font_manager")
+    log.addFilter(quiet)
+    try:
+        with warnings.catch_warnings():
+            warnings.filterwarnings("ignore", message=r"Glyph \d+ .*missing from font",
+                                    category=UserWarning)
+            yield
+    finally:
+        log.removeFilter(quiet)
 
 
 def pdf_metadata() -> dict:
@@ -120,9 +136,46 @@ def plain_text():
     return matplotlib.rc_context({"text.parse_math": False})
 
 
+CORE_FONT_TEXT = frozenset(
+    "".join(map(chr, range(32, 127))) + "\n\t"
+    + "".join(chr(c) for c in range(0xA0, 0x100) if chr(c) not in "¤²³¹¼¾")
+    + "–—‘’“”•…‰†‡‹›™ŠšŒœŽžŸ")
+"""Characters every PDF viewer draws with its built-in Helvetica and Courier (the standard
+14 fonts, WinAnsi encoding) and whose widths matplotlib knows from its bundled metrics."""
+
+CORE_FONTS = {"pdf.use14corefonts": True, "font.sans-serif": ["Helvetica"],
+              "font.monospace": ["Courier"], "font.serif": ["Times"], "axes.unicode_minus": False}
+"""Settings under which a PDF is written with the viewer's built-in fonts (see
+:func:`pdf_bytes`).  Courier's advance (0.600 em) is that of DejaVu Sans Mono (0.602 em)
+to 0.3 %, so the fixed-width tables keep their columns; Helvetica is narrower than
+DejaVu Sans, so text laid out for DejaVu never grows into its neighbour."""
+
+EMBEDDED_FONTS = {"font.sans-serif": ["DejaVu Sans"], "font.monospace": ["DejaVu Sans Mono"]}
+"""Settings for a PDF whose text needs more than :data:`CORE_FONT_TEXT`: matplotlib's
+bundled DejaVu fonts, embedded."""
+
+
+def core_fonts_suffice(figures) -> bool:
+    """True when every text of ``figures`` is made of :data:`CORE_FONT_TEXT` (tick labels
+    are numbers, drawn with an ASCII minus there)."""
+    from matplotlib.text import Text
+
+    return all(set(t.get_text()) <= CORE_FONT_TEXT for fig in figures for t in fig.findobj(Text))
+
+
 def pdf_bytes(figures) -> bytes:
+    """``figures`` as the pages of one PDF.
+
+    When all its text is Latin (:func:`core_fonts_suffice`), the text is set in the PDF
+    viewer's built-in Helvetica and Courier and no font is embedded: about 2.3 times
+    faster to write than embedded fonts, since matplotlib then emits each string whole
+    instead of laying it out glyph by glyph.  Text in other scripts (a well named in
+    Cyrillic, say) keeps the embedded DejaVu fonts, which cover it."""
+    figures = list(figures)
+    fonts = CORE_FONTS if core_fonts_suffice(figures) else EMBEDDED_FONTS
     buf = io.BytesIO()
-    with _missing_glyphs_quiet(), PdfPages(buf, metadata=pdf_metadata()) as pdf:
+    with _missing_glyphs_quiet(), matplotlib.rc_context(fonts), \
+            PdfPages(buf, metadata=pdf_metadata()) as pdf:
         for fig in figures:
             FigureCanvasAgg(fig)
             pdf.savefig(fig)
