@@ -53,5 +53,10 @@ def test_core_font_check_reads_every_text():
     ax = fig.add_subplot()
     ax.set_xlabel("throw (m)")
     assert core_fonts_suffice([fig])
+    ax.set_yticks([0, 1], ["dip", "throw"])
+    assert core_fonts_suffice([fig])
+    ax.set_yticks([0, 1], ["dip", "Δ throw"])  # tick labels given as text are read too
+    assert not core_fonts_suffice([fig])
+    ax.set_yticks([0, 1], ["dip", "throw"])
     ax.legend(handles=ax.plot([0, 1], label="SGR ≥ 20 %"))  # '≥' is not in WinAnsi
     assert not core_fonts_suffice([fig])

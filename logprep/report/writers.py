@@ -156,11 +156,28 @@ bundled DejaVu fonts, embedded."""
 
 
 def core_fonts_suffice(figures) -> bool:
-    """True when every text of ``figures`` is made of :data:`CORE_FONT_TEXT` (tick labels
-    are numbers, drawn with an ASCII minus there)."""
+    """True when every text of ``figures``, tick labels included, is made of
+    :data:`CORE_FONT_TEXT` with the settings of :data:`CORE_FONTS` (an ASCII minus)."""
+    with matplotlib.rc_context(CORE_FONTS):
+        return all(set(text) <= CORE_FONT_TEXT for fig in figures for text in _texts(fig))
+
+
+def _texts(artist):
+    """Every text string under ``artist``.  An axis gives its label and offset text only:
+    asking it for its children would make its ticks, the costliest part of a draw, twice."""
+    from matplotlib.axis import Axis
     from matplotlib.text import Text
 
-    return all(set(t.get_text()) <= CORE_FONT_TEXT for fig in figures for t in fig.findobj(Text))
+    for child in artist.get_children():
+        if isinstance(child, Axis):
+            yield child.label.get_text()
+            yield child.get_offset_text().get_text()
+            for ticker in (child.major, child.minor):  # the labels, without making ticks
+                yield from ticker.formatter.format_ticks(ticker.locator())
+            continue
+        if isinstance(child, Text):
+            yield child.get_text()
+        yield from _texts(child)
 
 
 def pdf_bytes(figures) -> bytes:
