@@ -65,6 +65,39 @@ def ratio(path: Path, settings: ScreenSettings, tops, repeat: int, out: Path):
     return tables, sheet, rows[-1]
 
 
+def page_split(path: Path, settings: ScreenSettings, tops, repeat: int) -> list[tuple[str, float]]:
+    """CPU seconds (best of ``repeat``) of each sheet page (built and written to a PDF of
+    its own) and of the PNG preview, for one well screened once."""
+    import time
+
+    from logprep.io.las import read_well
+    from logprep.report import writers
+    from logprep.report.sheet import PAGES
+    from logprep.run.pipeline import screen_well
+
+    result = screen_well(read_well(path), settings, tops=tops)
+    out = []
+    with writers.plain_text():
+        for make in PAGES:
+            best = float("inf")
+            for _ in range(repeat):
+                t = time.process_time()
+                figs = make(result)
+                if figs:
+                    writers.pdf_bytes(figs)
+                best = min(best, time.process_time() - t)
+            if figs:
+                out.append((make.__name__, best))
+        pdf = writers.pdf_bytes(PAGES[0](result))
+        best = float("inf")
+        for _ in range(repeat):
+            t = time.process_time()
+            writers.png_from_pdf(pdf)
+            best = min(best, time.process_time() - t)
+        out.append(("PNG of page 1", best))
+    return out
+
+
 def pdf_pages(path: Path) -> int:
     return len(re.findall(rb"/Type\s*/Page[^s]", path.read_bytes()))
 
@@ -95,6 +128,12 @@ def main() -> None:
                   f"sheet.pdf {(out / 's' / 'sheet.pdf').stat().st_size / 1e3:.0f} kB)")
         print(f"  examples, all wells: ratio wall {total_s / total_t:.2f}, cpu {total_sc / total_tc:.2f} "
               "(target <= 2)")
+        first = wells[0]
+        (t, tc), _, _ = ratio(first, settings, tops, args.repeat, out)
+        print(f"  where {first.stem}'s sheet time goes, CPU per page (built and written alone) "
+              f"as a share of the well tables-only ({tc:.2f} s):")
+        for name, cpu in page_split(first, settings, tops, args.repeat):
+            print(f"    {name:<22} {cpu:6.3f} s  {cpu / tc:5.2f}x tables-only")
         if not args.no_big:
             big = big_well(out / "BENCH-BIG.las")
             plain = ScreenSettings()

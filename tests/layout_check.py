@@ -50,3 +50,37 @@ def off_page(fig, boxes, tol: float = 0.5) -> list[str]:
     """Texts whose box leaves the page."""
     w, h = fig.get_figwidth() * fig.dpi, fig.get_figheight() * fig.dpi
     return [t for t, b in boxes if b.x0 < -tol or b.y0 < -tol or b.x1 > w + tol or b.y1 > h + tol]
+
+
+class Box:
+    """A rectangle in PDF points (x0, y0 lower left; x1, y1 upper right)."""
+
+    def __init__(self, x0, y0, x1, y1):
+        self.x0, self.y0, self.x1, self.y1 = x0, y0, x1, y1
+
+
+def pdf_text_boxes(pdf: bytes) -> list[tuple[tuple[float, float], list[tuple[str, Box]]]]:
+    """For each page of a written PDF: its size (pt) and the (text, box) of every text
+    object as PDFium lays it out, that is as a reader sees the page, whatever fonts the
+    file uses."""
+    import pypdfium2 as pdfium
+    import pypdfium2.raw as pdfium_c
+
+    doc = pdfium.PdfDocument(pdf)
+    pages = []
+    for page in doc:
+        textpage = page.get_textpage()
+        boxes = []
+        for obj in page.get_objects(filter=(pdfium_c.FPDF_PAGEOBJ_TEXT,)):
+            x0, y0, x1, y1 = obj.get_bounds()
+            text = textpage.get_text_bounded(x0, y0, x1, y1).strip()
+            if text and x1 > x0 and y1 > y0:
+                boxes.append((text, Box(x0, y0, x1, y1)))
+        pages.append((page.get_size(), boxes))
+    return pages
+
+
+def pdf_off_page(size, boxes, tol: float = 0.5) -> list[str]:
+    """Texts of a PDF page whose box leaves the page (``size`` in points)."""
+    w, h = size
+    return [t for t, b in boxes if b.x0 < -tol or b.y0 < -tol or b.x1 > w + tol or b.y1 > h + tol]

@@ -9,7 +9,7 @@ import numpy as np
 import pytest
 
 from conftest import open_logs_path
-from layout_check import collisions, off_page, text_boxes
+from layout_check import collisions, off_page, pdf_off_page, pdf_text_boxes, text_boxes
 from logprep.report.sheet import build_sheet
 from logprep.run.pipeline import screen_file
 from logprep.run.settings import ScreenSettings
@@ -34,11 +34,29 @@ def assert_legible(pages, who):
         assert not out, f"{who} page {k}: text off the page {[t[:60] for t in out[:5]]}"
 
 
+def assert_pdf_legible(pdf: bytes, who):
+    """The same checks on the written PDF, with the fonts it was written in (the viewer's
+    built-in ones for Latin text), text boxes as PDFium lays them out."""
+    for k, (size, boxes) in enumerate(pdf_text_boxes(pdf), start=1):
+        assert boxes, f"{who} PDF page {k}: no text"
+        hit = collisions(boxes, shrink=0.4)
+        assert not hit, f"{who} PDF page {k}: overlapping text {hit[:5]}"
+        out = pdf_off_page(size, boxes)
+        assert not out, f"{who} PDF page {k}: text off the page {[t[:60] for t in out[:5]]}"
+
+
+def written_sheet(result) -> bytes:
+    from logprep.report.writers import render_well
+
+    return render_well(result, build_sheet, field=False)["sheet.pdf"]
+
+
 @pytest.mark.parametrize("name", list(OPEN_WELLS))
 def test_open_well_sheet_text_never_collides(name):
     path = open_logs_path(*OPEN_WELLS[name])
     result = screen_file(path, ScreenSettings())
     assert_legible(build_sheet(result), name)
+    assert_pdf_legible(written_sheet(result), name)
 
 
 def test_example_with_tops_survey_and_notes(example_dir):
@@ -47,6 +65,7 @@ def test_example_with_tops_survey_and_notes(example_dir):
     result = screen_file(example_dir / "HRM-5.las", s)
     pages = build_sheet(result)
     assert_legible(pages, "HRM-5")
+    assert_pdf_legible(written_sheet(result), "HRM-5")
     texts = [t for t, _ in text_boxes(pages[0])]
     for name in result.tops["name"]:  # every formation of the well is named on page 1
         assert any(str(name)[:8] in t for t in texts), name
@@ -82,6 +101,11 @@ def test_pair_sheet_is_complete_and_legible(example_dir):
     pages = build_pair_sheet(PairScreening(fw, hw, shift, "Kellan Marker", windows, grid, s))
     assert len(pages) == 3  # columns and triangle, window table with verdicts, seal capacity
     assert_legible(pages, "HRM-2/HRM-3")
+    from logprep.report.writers import pdf_bytes, plain_text
+
+    with plain_text():
+        assert_pdf_legible(pdf_bytes(build_pair_sheet(PairScreening(fw, hw, shift, "Kellan Marker",
+                                                                    windows, grid, s))), "HRM-2/HRM-3")
     table_text = " ".join(t for t, _ in text_boxes(pages[1]))
     for word in set(windows["verdict"]):
         assert f" {word} " in table_text
@@ -91,3 +115,42 @@ def test_pair_sheet_is_complete_and_legible(example_dir):
     for ax in pages[0].axes[:2]:
         ys = [ln.get_ydata()[0] for ln in ax.get_lines()]
         assert any(abs(y - tie) < 1e-9 for y in ys)
+
+
+def test_written_sheet_prints_no_math_markup(example_dir):
+    """The sheet draws every text as plain text (file names are never math); tick labels of
+    the logarithmic axes (column heights, CSP colour bar) must then be plain numbers, not
+    markup such as ``$\\mathdefault{10^{3}}$``.  Read from the written PDF with PDFium.
+    (Plain tick labels of a log axis: common practice, no source.)"""
+    import pypdfium2 as pdfium
+
+    from logprep.report.writers import render_well
+
+    result = screen_file(example_dir / "HRM-1.las", ScreenSettings())
+    files = render_well(result, build_sheet)
+    doc = pdfium.PdfDocument(files["sheet.pdf"])
+    texts = [doc[i].get_textpage().get_text_range() for i in range(len(doc))]
+    for k, text in enumerate(texts, start=1):
+        assert "mathdefault" not in text and "$" not in text, f"page {k} prints math markup"
+    capacity = next(t for t in texts if "seal capacity" in t)
+    assert "1000" in capacity.split() or "100" in capacity.split(), "log axis labels missing"
+    smear = next(t for t in texts if "smear indicators" in t)
+    assert {"0.1", "1", "10", "100", "1000"} <= set(smear.split()), "CSP colour bar labels missing"
+    png = files["sheet.png"]
+    assert png.startswith(b"\x89PNG")
+
+
+def test_pdf_check_finds_overlap_and_text_off_the_page():
+    """The PDF checks above can fail: two texts drawn over each other and one past the
+    right edge are found in the written file."""
+    from matplotlib.figure import Figure
+
+    from logprep.report.writers import pdf_bytes
+
+    fig = Figure(figsize=(4, 3))
+    fig.text(0.1, 0.5, "first line of text", fontsize=10)
+    fig.text(0.15, 0.51, "second over it", fontsize=10)
+    fig.text(0.9, 0.2, "runs off the right edge", fontsize=10)
+    ((size, boxes),) = pdf_text_boxes(pdf_bytes([fig]))
+    assert collisions(boxes, shrink=0.4)
+    assert pdf_off_page(size, boxes) == ["runs off the right edge"]

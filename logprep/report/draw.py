@@ -150,6 +150,21 @@ def draw_window_numbers(ax, polys: dict) -> None:
         ax.add_collection(LineCollection(leaders, colors=WINDOW_INK, linewidths=0.5, zorder=2.5))
 
 
+def plain_log_ticks(axis) -> None:
+    """Label a logarithmic ``axis`` (an ``Axis`` of an axes or a colour bar) in plain numbers
+    (0.01, 1, 100, 1000) and mark the minor ticks at 2 and 5 of each decade, unlabelled.
+
+    Matplotlib's default log labels are math text; every sheet text is drawn as plain text
+    (:func:`logprep.report.writers.plain_text`), so they would print as markup.  Fewer
+    minor ticks also draw faster."""
+    from matplotlib.ticker import FuncFormatter, LogLocator, NullFormatter
+
+    axis.set_major_locator(LogLocator(base=10.0, numticks=12))
+    axis.set_major_formatter(FuncFormatter(lambda v, _pos: f"{v:g}"))
+    axis.set_minor_locator(LogLocator(base=10.0, subs=(2.0, 5.0), numticks=12))
+    axis.set_minor_formatter(NullFormatter())
+
+
 def draw_sgr_colourbar(ax, im, label="SGR %; lines: contours"):
     """A small horizontal colour bar above ``ax``, its label to its left; the field's
     contour levels (if drawn) are marked on it and its ticks are the levels themselves."""

@@ -124,7 +124,9 @@ def draw_map(ax, rows: list[OverviewRow]) -> str:
     unit = "degrees, equirectangular" if kind == GEOGRAPHIC else "grid units as given"
     ax.set_xlabel(f"east ({unit})", fontsize=7)
     ax.set_ylabel("north", fontsize=7)
-    ax.text(0.98, 0.98, "N \u2191", transform=ax.transAxes, ha="right", va="top", fontsize=8)
+    ax.annotate("", xy=(0.985, 0.985), xytext=(0.985, 0.905), xycoords="axes fraction",
+                arrowprops={"arrowstyle": "-|>", "lw": 0.8, "color": "#222222"})  # north arrow
+    ax.text(0.97, 0.945, "N", transform=ax.transAxes, ha="right", va="center", fontsize=8)
     from matplotlib.lines import Line2D
 
     handles = [Line2D([], [], ls="none", marker=WORST_STYLE[w][1], color=WORST_STYLE[w][0],
@@ -167,7 +169,7 @@ def overview_figure(rows: list[OverviewRow], verdict_rule: str = "") -> Figure:
     more = len(lines) - len(shown)
     text = "\n".join(shown) + (f"\n... {more} more row(s): see overview.html or summary.csv"
                                if more else "")
-    fig.text(left, top, text, family="DejaVu Sans Mono", fontsize=size, va="top",
+    fig.text(left, top, text, family="monospace", fontsize=size, va="top",
              linespacing=1.2, parse_math=False)
     if fail_lines:
         max_chars = int(width_pt / (size * MONO_ADVANCE_EM))
@@ -175,7 +177,7 @@ def overview_figure(rows: list[OverviewRow], verdict_rule: str = "") -> Figure:
         if len(fail_lines) > n_fail:
             cut.append(f"... {len(fail_lines) - n_fail} more: see overview.html or summary.csv")
         y = top - (len(shown) + (1 if more else 0) + 1) * pitch_pt / fig_h_pt
-        fig.text(left, y, f"Failed ({len(fail_lines)}):\n" + "\n".join(cut), family="DejaVu Sans Mono",
+        fig.text(left, y, f"Failed ({len(fail_lines)}):\n" + "\n".join(cut), family="monospace",
                  fontsize=size, va="top", color="#7A1F00", linespacing=1.2, parse_math=False)
     fig.text(0.03, 0.03, "CAUTION: " + CAUTION, fontsize=7.5, va="bottom", wrap=True,
              color="#7A1F00", parse_math=False,

@@ -9,7 +9,7 @@ from matplotlib.figure import Figure
 
 from logprep.fault.capacity import window_columns_m, window_throws
 from logprep.fault.envelope import envelope_c, fault_zone_pressure_bar, column_height_m
-from logprep.report.draw import PAGE_SIZE_IN, draw_footer, riskiest_windows
+from logprep.report.draw import PAGE_SIZE_IN, draw_footer, plain_log_ticks, riskiest_windows
 from logprep.units import M_PER_FT
 
 N_CURVES = 8
@@ -79,11 +79,13 @@ def draw_column_panel(ax, result, fluid: str, numbers, columns_fn=None) -> list:
             handles.append(Line2D([], [], color="#555555", ls=style, lw=1,
                                   label=f"column at SGR {sgr:g} % ({word}), C {weakest_c:g}"))
     ax.set_yscale("log")
+    plain_log_ticks(ax.yaxis)
     ax.set_ylim(max(0.5 * min(lows), 0.1 * per) if lows else 1.0, cap)
     tmax = max(float(w_all.iloc[k - 1].throw_max_m) for k in numbers) if numbers else s.field.throw_max_m
     ax.set_xlim(0, min(s.field.throw_max_m, 1.05 * tmax))
     ax.set_xlabel("Throw (m)")
-    ax.set_title(f"{fluid.upper() if fluid == 'co2' else fluid.capitalize()}", loc="left", fontsize=10)
+    ax.text(0.0, 1.01, "CO2" if fluid == "co2" else fluid.capitalize(), transform=ax.transAxes,
+            ha="left", va="bottom", fontsize=10)  # as a title, without the title's layout pass
     ax.grid(True, which="both", color="#E5E5E5", lw=0.5)
     ax.tick_params(labelsize=7.5)
     return handles

@@ -76,7 +76,10 @@ def _spread_axis(ax, rows, name: str, unit: str, base=None, log=False, lines=())
         ax.text(x, 1.0, text, transform=ax.get_xaxis_transform(), fontsize=6.5, color="#D55E00",
                 ha="right" if k == 0 else "left", va="bottom")
     if log:
+        from logprep.report.draw import plain_log_ticks
+
         ax.set_xscale("log")
+        plain_log_ticks(ax.xaxis)
     ax.set_yticks(y)
     ax.set_yticklabels([])
     ax.set_ylim(-0.6, len(rows) - 0.4)

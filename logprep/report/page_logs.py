@@ -87,9 +87,13 @@ def draw_vsh_track(ax, result) -> None:
 def draw_layer_track(ax, result) -> None:
     """The blocked column coloured by lithology; samples with any QC flag are marked
     by a dark tick in the right third of the column."""
+    from matplotlib.collections import PolyCollection
+
     L = result.layers
-    for top, base, lith in zip(L.top_m, L.base_m, L.lithology):
-        ax.axhspan(top, base, color=LITHOLOGY_COLOURS[lith], lw=0)
+    spans = [((0, t), (1, t), (1, b), (0, b)) for t, b in zip(L.top_m, L.base_m)]
+    ax.add_collection(PolyCollection(  # one collection: a patch per layer costs 1-2 ms each
+        spans, facecolors=[LITHOLOGY_COLOURS[lith] for lith in L.lithology], linewidths=0,
+        antialiaseds=False, transform=ax.get_yaxis_transform()), autolim=False)
     hatch_no_data_layers(ax, L)
     if result.qc_flags:
         bad = np.zeros(result.depth_m.size, dtype=bool)

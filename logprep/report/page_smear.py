@@ -15,6 +15,7 @@ from logprep.fault.sgr import contact_polygon
 from logprep.fault.smear import SSF_INCOMPLETE
 from logprep.report.draw import (
     INK, MAX_DRAWN_ROWS, PAGE_SIZE_IN, WINDOW_INK, draw_contours, draw_footer, field_cmap, field_ylim,
+    plain_log_ticks,
 )
 
 SSF_RANGE = (0.0, 2 * SSF_INCOMPLETE)
@@ -75,9 +76,10 @@ def smear_page(result) -> list[Figure]:
     cb = fig.colorbar(im, ax=ax1, orientation="horizontal", fraction=0.04, pad=0.08, extend="max")
     if cs1 is not None:
         cb.add_lines(cs1)  # the contour levels, marked on the bar instead of along the lines
-    cb.set_label("SSF = throw / thickness of the thickest shale bed passed (bold: 7, above which "
-                 "smears may be incomplete; top colour also where no shale has passed)", fontsize=7)
-    ax1.set_title("Shale smear factor (Lindsay et al. 1993)", loc="left", fontsize=10)
+    cb.set_label("SSF = throw / thickness of the thickest source bed passed (bold: 7, above which "
+                 "smears may be incomplete; top colour also where no source bed has passed)", fontsize=7)
+    ax1.text(0.0, 1.01, "Shale smear factor (Lindsay et al. 1993)", transform=ax1.transAxes,
+             ha="left", va="bottom", fontsize=10)
     ax1.set_ylabel("Footwall depth (m)")
     ax1.set_xlabel("Throw (m)")
 
@@ -88,13 +90,17 @@ def smear_page(result) -> list[Figure]:
     cb = fig.colorbar(im, ax=ax2, orientation="horizontal", fraction=0.04, pad=0.08, extend="both")
     if cs2 is not None:
         cb.add_lines(cs2)
-    cb.set_label("CSP = sum of thickness^2 / smear distance over the shale beds passed, from "
+    plain_log_ticks(cb.ax.xaxis)
+    cb.set_label("CSP = sum of thickness^2 / smear distance over the source beds passed, from "
                  "both cut-offs (m; bottom colour also where none has passed)", fontsize=7)
-    ax2.set_title("Clay smear potential (Bouvier et al. 1989; Fulljames et al. 1997)", loc="left",
-                  fontsize=10)
+    ax2.text(0.0, 1.01, "Clay smear potential (Bouvier et al. 1989; Fulljames et al. 1997)",
+             transform=ax2.transAxes, ha="left", va="bottom", fontsize=10)
     ax2.set_xlabel("Throw (m)")
     ax2.tick_params(labelleft=False)
-    fig.text(0.05, 0.905, "Source beds: the shale layers of the blocked column. Vermillion "
+    clay_min = result.settings.field.smear_clay_min
+    fig.text(0.05, 0.905, f"Source beds: the shale and heterolith layers of the blocked column whose "
+             f"clay fraction reaches {clay_min:g} (--smear-clay-min), each with its full thickness. "
+             "Vermillion "
              "outlines: sand-sand windows between different sands. Grey: the slipped interval "
              "leaves the log.", fontsize=8)
     draw_footer(fig, result)

@@ -94,7 +94,7 @@ def draw_verdict_key(ax, y: float, fontsize: float = 7.0) -> None:
     fig = ax.get_figure()
     width_pt = ax.get_position().width * fig.get_figwidth() * 72.0
     char_w = fontsize * MONO_ADVANCE_EM / width_pt
-    style = {"family": "DejaVu Sans Mono", "fontsize": fontsize, "va": "top", "ha": "left",
+    style = {"family": "monospace", "fontsize": fontsize, "va": "top", "ha": "left",
              "parse_math": False}
     label = "verdict tints:"
     ax.text(0.0, y, label, **style)
@@ -148,7 +148,7 @@ def draw_window_table(ax, rows, title, *, fontsize: float = 7.5, head=None, bloc
         return "".join(f.center(w) for f, w in zip(fields, widths))
 
     shades, rules = [], []
-    text = {"family": "DejaVu Sans Mono", "fontsize": size, "va": "center", "ha": "left",
+    text = {"family": "monospace", "fontsize": size, "va": "center", "ha": "left",
             "parse_math": False}
     shown = 0
     for b in range(blocks):

@@ -130,7 +130,7 @@ def write_faults(results: list[FaultResult], out_dir: str | Path, settings, *, s
     """Write ``faults.csv`` and, with ``sheets``, ``faults/<name>.pdf``/``.png`` (one page
     per fault); each file atomically.  Returns the paths written."""
     from logprep.report.page_fault import fault_page
-    from logprep.report.writers import csv_bytes, folder_name, pdf_bytes, png_bytes, write_bytes_atomic
+    from logprep.report.writers import csv_bytes, folder_name, sheet_files, write_bytes_atomic
 
     out = Path(out_dir)
     written = [out / FAULTS_FILE_NAME]
@@ -140,8 +140,8 @@ def write_faults(results: list[FaultResult], out_dir: str | Path, settings, *, s
         for res in results:
             page = fault_page(res, res.grid, settings)
             stem = folder_name(res.spec.name, taken)
-            for suffix, data in ((".pdf", pdf_bytes([page])), (".png", png_bytes(page))):
-                path = out / FAULT_PAGES_FOLDER / f"{stem}{suffix}"
+            for name, data in sheet_files([page], stem).items():
+                path = out / FAULT_PAGES_FOLDER / name
                 write_bytes_atomic(path, data)
                 written.append(path)
     return written

@@ -26,7 +26,7 @@ from logprep.io.closures import parse_closure_m
 from logprep.fault.pair_capacity import pair_clay_layers, pair_seal_capacity_table
 from logprep.fault.settings import capacity_params
 from logprep.report.writers import (
-    csv_bytes, folder_name, pdf_bytes, plain_text, png_bytes, with_window_numbers, write_bytes_atomic,
+    csv_bytes, folder_name, plain_text, sheet_files, with_window_numbers, write_bytes_atomic,
 )
 from logprep.io.tops import well_key
 from logprep.fault.twowell import (
@@ -178,7 +178,7 @@ def _screen_pair(settings, tops, options, pair, fw_file, hw_file):
                 fw, hw, shift, pair["marker"] or "", windows, grid, settings,
                 closure_note=closure_describe(closure[0], settings.capacity.unconstrained_column_m,
                                               closure[1])))
-            files.update({"sheet.pdf": pdf_bytes(pages), "sheet.png": png_bytes(pages[0])})
+            files.update(sheet_files(pages))
     return shift, windows, files
 
 

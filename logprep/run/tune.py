@@ -39,7 +39,8 @@ from logprep.layers.rockscore import called_reservoir, rock_scores
 from logprep.layers.stage import blocked_column
 from logprep.model import Layers
 from logprep.report.tune_figure import sweep_figure
-from logprep.report.writers import csv_bytes, pdf_bytes, plain_text, png_bytes, write_bytes_atomic
+from logprep.report.writers import (csv_bytes, pdf_bytes, plain_text, png_from_pdf,
+                                     write_bytes_atomic)
 from logprep.run.config import SETTINGS_FILE_NAME, settings_toml
 from logprep.run.pipeline import WellScreening, qc_flagged, screen_well
 from logprep.run.settings import ScreenSettings
@@ -395,7 +396,8 @@ def write_sweep(sweep: Sweep, out_dir: str | Path) -> dict[str, Path]:
     ranges) into ``out_dir``, each atomically.  Returns the paths by file name."""
     with plain_text():
         fig = sweep_figure(sweep, stable_settings(sweep))
-        pdf, png = pdf_bytes([fig]), png_bytes(fig)
+        pdf = pdf_bytes([fig])
+        png = png_from_pdf(pdf)
     files = {
         "tune.csv": csv_bytes(sweep.table),
         "tune-windows.csv": csv_bytes(sweep.windows),

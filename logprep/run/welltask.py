@@ -81,7 +81,7 @@ def screen_well_task(settings, tops, options: OutputOptions, fault_work: tuple, 
     bounds the well's time.
     """
     from logprep.io.las import read_well
-    from logprep.report.writers import pdf_bytes, png_bytes, render_well
+    from logprep.report.writers import render_well, sheet_files
     from logprep.run.pipeline import screen_well
 
     from logprep.report.writers import plain_text
@@ -111,9 +111,7 @@ def screen_well_task(settings, tops, options: OutputOptions, fault_work: tuple, 
             from logprep.report.sheet import build_sheet
 
             with plain_text():  # text from files is never read as math markup
-                pages = build_sheet(result)
-                files["sheet.pdf"] = pdf_bytes(pages)
-                files["sheet.png"] = png_bytes(pages[0])
+                files.update(sheet_files(build_sheet(result)))
         t["drawing"] = time.perf_counter() - t3
         return result, files
 
