@@ -38,6 +38,14 @@ LOCAL_WORKER_CONFIG = {
     # 20 % more CPU per well (bench/bench_batch_scale.py); the allocator's own adaptive
     # thresholds are kept instead
     "distributed.nanny.pre-spawn-environ.MALLOC_TRIM_THRESHOLD_": None,
+    # calmer house-keeping: every well is a task of a second or more, so the event loops'
+    # 20 ms tick, the 100 ms memory poll and the 500 ms system monitor only spend the CPU
+    # the wells need (the main process, home of the scheduler and the nannies, used about
+    # half the CPU with these on 16 bench wells; bench/bench_batch_scale.py)
+    "distributed.admin.tick.interval": "500ms",
+    "distributed.worker.memory.monitor-interval": "1s",
+    "distributed.admin.system-monitor.interval": "2s",
+    "distributed.scheduler.work-stealing-interval": "1s",
 }
 """Dask settings of the ``--dask-local`` cluster (a ``--scheduler`` cluster keeps its own;
 README says how a team sets the same)."""
