@@ -134,9 +134,9 @@ def test_overview_opens_sorts_filters_and_links(browser, batch_out):
     requests = [json.loads(e["message"])["message"] for e in browser.get_log("performance")]
     urls = [m["params"]["request"]["url"] for m in requests if m["method"] == "Network.requestWillBeSent"]
     assert page.as_uri() in urls  # the log holds the page's own load
-    # the browser's own pages (chrome://) are internal; anything reaching out would be
-    # http(s), ws(s) or ftp
-    remote = [u for u in urls if urlparse(u).scheme not in ("file", "data", "chrome", "about")]
+    # the browser's own pages (chrome://, chrome-untrusted:// of its new-tab page) are
+    # internal; anything reaching out is http(s), ws(s) or ftp
+    remote = [u for u in urls if urlparse(u).scheme in ("http", "https", "ws", "wss", "ftp")]
     assert not remote, remote
     errors = [e for e in browser.get_log("browser") if e["level"] == "SEVERE"]
     assert not errors, errors
