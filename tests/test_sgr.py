@@ -175,8 +175,8 @@ def test_npz_contents():
     vsh = np.interp(depth, [0, 10, 10, 14, 14, 30], [0.1, 0.1, 0.9, 0.9, 0.2, 0.2])
     f = sgr_field(L, depth, vsh, throw_max_m=20, throw_step_m=1.0, depth_step_m=1.0)
     z = np.load(io.BytesIO(f.npz_bytes()))
-    assert z["sgr_pct_x10"].shape == (z["depth_m"].size, z["throw_m"].size) == z["juxtaposition"].shape
-    assert z["sgr_pct_x10"].dtype == np.int16 and z["juxtaposition"].dtype == np.int8
+    assert z["sgr_pct_x10_diff"].shape == (z["depth_m"].size, z["throw_m"].size) == z["juxtaposition"].shape
+    assert z["sgr_pct_x10_diff"].dtype == np.int16 and z["juxtaposition"].dtype == np.int8
     back = SgrField.from_npz(f.npz_bytes())
     np.testing.assert_allclose(back.sgr_pct, f.sgr_pct, atol=0.05 + 1e-6)  # 0.1 % steps, rounded
     assert np.array_equal(np.isnan(back.sgr_pct), np.isnan(f.sgr_pct))

@@ -99,7 +99,7 @@ def test_pairs_cli_on_example(tmp_path, example_dir):
     assert list(jux.columns[:8]) == list(sand_windows.__globals__["WINDOW_COLUMNS"])
     assert jux["sgr_min_pct"].between(0, 100).all() and len(jux) > 0
     z = np.load(d / "sgr_field.npz")
-    assert z["sgr_pct_x10"].shape == (z["depth_m"].size, z["throw_m"].size)
+    assert z["sgr_pct_x10_diff"].shape == (z["depth_m"].size, z["throw_m"].size)
     assert (d / "sheet.pdf").read_bytes().startswith(b"%PDF")
 
 
