@@ -289,19 +289,9 @@ def seal_capacity_table(windows: pd.DataFrame, layers: Layers, params: CapacityP
     if length_unit not in LENGTH_UNITS:
         raise SettingsError(f"unknown length unit {length_unit!r}; use one of {', '.join(LENGTH_UNITS)}")
     out = windows.copy()
-    # the CO2 density depends on a window only through its shallowest contact, which many
-    # windows share (110 depths for 1,241 windows of a 20,000-sample well): one
-    # equation-of-state solve per depth, the same values
-    co2_by_contact: dict[float, float] = {}
-
-    def co2_rho(w) -> float:
-        key = _shallowest_contact_m(w)
-        if key not in co2_by_contact:
-            co2_by_contact[key] = _co2_density(w, params, datum_m, surface_elevation_m)
-        return co2_by_contact[key]
-
     # plain dicts per row: a pandas row lookup costs more than the science of a window
-    rows = [_window_capacity(layers, w, params, datum_m, surface_elevation_m, co2_rho(w))
+    rows = [_window_capacity(layers, w, params, datum_m, surface_elevation_m,
+                             _co2_density(w, params, datum_m, surface_elevation_m))
             for w in windows.to_dict("records")]
     extra = pd.DataFrame(rows, columns=CAPACITY_COLUMNS, index=windows.index)
     for col in CAPACITY_COLUMNS:
