@@ -26,7 +26,7 @@ import numpy as np
 from logprep.io.examples import example_logs_dir
 from logprep.run.batch import screen_one
 from logprep.run.pipeline import ScreenSettings
-from timing import best_interleaved_s
+from timing import best_cpu_s, best_interleaved_s
 
 
 def big_well(path: Path, n: int = 20_000, step_m: float = 0.1524, random_state: int = 7) -> Path:
@@ -65,52 +65,36 @@ def ratio(path: Path, settings: ScreenSettings, tops, repeat: int, out: Path):
     return tables, sheet, rows[-1]
 
 
-def page_split(path: Path, settings: ScreenSettings, tops, repeat: int) -> list[tuple[str, float]]:
+def page_split(result, repeat: int) -> list[tuple[str, float]]:
     """CPU seconds (best of ``repeat``) of each sheet page (built and written to a PDF of
-    its own) and of the PNG preview, for one well screened once."""
-    import time
-
-    from logprep.io.las import read_well
+    its own) and of the PNG preview, for one screened well."""
     from logprep.report import writers
     from logprep.report.sheet import PAGES
-    from logprep.run.pipeline import screen_well
 
-    result = screen_well(read_well(path), settings, tops=tops)
+    def page(make):
+        figs = make(result)
+        if figs:
+            writers.pdf_bytes(figs)
+        return figs
+
     out = []
     with writers.plain_text():
         for make in PAGES:
-            best = float("inf")
-            for _ in range(repeat):
-                t = time.process_time()
-                figs = make(result)
-                if figs:
-                    writers.pdf_bytes(figs)
-                best = min(best, time.process_time() - t)
+            best, figs = best_cpu_s(lambda: page(make), repeat)
             if figs:
                 out.append((make.__name__, best))
         pdf = writers.pdf_bytes(PAGES[0](result))
-        best = float("inf")
-        for _ in range(repeat):
-            t = time.process_time()
-            writers.png_from_pdf(pdf)
-            best = min(best, time.process_time() - t)
-        out.append(("PNG of page 1", best))
+        out.append(("PNG of page 1", best_cpu_s(lambda: writers.png_from_pdf(pdf), repeat)[0]))
     return out
 
 
-def frame_floor(path: Path, settings: ScreenSettings, tops, repeat: int) -> float:
+def frame_floor(result, repeat: int) -> float:
     """CPU seconds (best of ``repeat``) to build every sheet page and write them as one PDF
     with the data removed: every line, image, collection and patch taken off the axes, the
     axes, ticks, legends, tables and text kept.  No drawing of this sheet layout in
     matplotlib can cost less, so ``1 + floor / tables-only`` bounds the ratio from below."""
-    import time
-
-    from logprep.io.las import read_well
     from logprep.report import writers
     from logprep.report.sheet import PAGES
-    from logprep.run.pipeline import screen_well
-
-    result = screen_well(read_well(path), settings, tops=tops)
 
     def frames():
         figs = [fig for make in PAGES for fig in make(result)]
@@ -120,13 +104,8 @@ def frame_floor(path: Path, settings: ScreenSettings, tops, repeat: int) -> floa
                     artist.remove()
         return writers.pdf_bytes(figs)
 
-    best = float("inf")
     with writers.plain_text():
-        for _ in range(repeat):
-            t = time.process_time()
-            frames()
-            best = min(best, time.process_time() - t)
-    return best
+        return best_cpu_s(frames, repeat)[0]
 
 
 def pdf_pages(path: Path) -> int:
@@ -163,9 +142,13 @@ def main() -> None:
         (t, tc), _, _ = ratio(first, settings, tops, args.repeat, out)
         print(f"  where {first.stem}'s sheet time goes, CPU per page (built and written alone) "
               f"as a share of the well tables-only ({tc:.2f} s):")
-        for name, cpu in page_split(first, settings, tops, args.repeat):
+        from logprep.io.las import read_well
+        from logprep.run.pipeline import screen_well
+
+        first_result = screen_well(read_well(first), settings, tops=tops)
+        for name, cpu in page_split(first_result, args.repeat):
             print(f"    {name:<22} {cpu:6.3f} s  {cpu / tc:5.2f}x tables-only")
-        floor = frame_floor(first, settings, tops, args.repeat)
+        floor = frame_floor(first_result, args.repeat)
         print(f"  {first.stem}'s pages with the data removed (axes, ticks, legends, tables, text "
               f"only): {floor:.3f} s = {floor / tc:.2f}x tables-only, so its ratio cannot fall "
               f"below {1 + floor / tc:.2f} with this layout drawn by matplotlib")
