@@ -211,7 +211,7 @@ def _add_locations_option(p: argparse.ArgumentParser) -> None:
 
 
 def cmd_screen(args) -> int:
-    from logprep.run.contain import final_line, pairs_line, print_error
+    from logprep.run.contain import final_line, overview_after_batch, pairs_line, print_error
     from logprep.run.batch import screen_paths
     from logprep.io.examples import example_logs_dir
 
@@ -264,10 +264,7 @@ def cmd_screen(args) -> int:
         print(pairs_line(rows, args.out))
         failed = failed or any(r["status"] != "ok" for r in rows)
     failed = faults_after_batch(args, faults, settings) or failed
-    from logprep.report.overview_files import write_overview
-
-    written = write_overview(args.out, args.locations)
-    print(f"field overview {written['overview.html']} (open in a browser) and {written['overview.pdf']}")
+    failed = overview_after_batch(args.out, args.locations) or failed
     return EXIT_SOME_FAILED if failed else EXIT_OK
 
 

@@ -91,6 +91,28 @@ def test_pair_and_fault_bugs_are_contained_logged_and_counted(tmp_path, capsys, 
     assert "pair A-1 / B-1" in log and "fault 'F-deep'" in log and "no such key" in log
 
 
+def test_overview_that_cannot_be_written_is_one_error_line_and_the_wells_stand(tmp_path, capsys, monkeypatch):
+    # the system refuses the overview (here a font file it cannot read, as seen when the
+    # installation is unreadable to the user): one error line, the traceback logged, the
+    # wells' results and summary in place, exit status 1 (common practice, no source)
+    import logprep.report.overview_files as overview_files
+
+    def refuse(out_dir, locations_file=None):
+        raise PermissionError(13, "Permission denied", "/site-packages/fonts/Courier.afm")
+
+    monkeypatch.setattr(overview_files, "write_overview", refuse)
+    files = _wells(tmp_path)[:1]
+    out = tmp_path / "o"
+    rc = main(["screen", *map(str, files), "--out", str(out), "--no-sheet", "--no-field"])
+    cap = capsys.readouterr()
+    assert rc == 1 and "Traceback" not in cap.err
+    err = [ln for ln in cap.err.splitlines() if ln.startswith("error: ")]
+    assert len(err) == 1 and "overview.html" in err[0] and "PermissionError" in err[0], cap.err
+    assert "field overview" not in cap.out and "1 ok, 0 failed" in cap.out
+    assert (out / "summary.csv").exists() and not (out / "overview.html").exists()
+    assert "Courier.afm" in (out / INTERNAL_LOG_NAME).read_text()
+
+
 def test_well_time_limit_is_a_setting_and_a_stall_becomes_an_error_row(tmp_path, capsys, plugin):
     from logprep.run.batch import run_settings_sha256
     from logprep.run.config import read_config

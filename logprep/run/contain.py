@@ -138,3 +138,21 @@ def pairs_line(rows: list[dict], out) -> str:
     skipped = f" ({same} unchanged since the last run, skipped)" if same else ""
     return (f"screened {len(rows)} well pair(s): {len(rows) - bad} ok, {bad} failed{bugs}{skipped}; "
             f"summary {show_path(out)}/pairs_summary.csv")
+
+
+def overview_after_batch(out_dir, locations_file=None) -> bool:
+    """Write ``overview.html`` and ``overview.pdf`` after a batch and print their line.  A
+    failure, the system's or logprep's, is one ``error:`` line (an unexpected one's
+    traceback goes to :data:`INTERNAL_LOG_NAME`) and the wells' results stand.  True when
+    it failed."""
+    from logprep.report.overview_files import write_overview
+
+    written, problem = contained_screen(lambda: write_overview(out_dir, locations_file),
+                                        Path(out_dir) / "overview.html", None)
+    if problem is None:
+        print(f"field overview {written['overview.html']} (open in a browser) and {written['overview.pdf']}")
+        return False
+    if problem.internal:
+        log_internal(Path(out_dir), "overview.html", problem.traceback)
+    print_error(problem.message)
+    return True
