@@ -108,6 +108,7 @@ def test_overview_that_cannot_be_written_is_one_error_line_and_the_wells_stand(t
     assert rc == 1 and "Traceback" not in cap.err
     err = [ln for ln in cap.err.splitlines() if ln.startswith("error: ")]
     assert len(err) == 1 and "overview.html" in err[0] and "PermissionError" in err[0], cap.err
+    assert f"logprep overview {out}" in err[0]  # what to do
     assert "field overview" not in cap.out and "1 ok, 0 failed" in cap.out
     assert (out / "summary.csv").exists() and not (out / "overview.html").exists()
     assert "Courier.afm" in (out / INTERNAL_LOG_NAME).read_text()

@@ -68,6 +68,12 @@ def time_limit(seconds: float | None, where: str, limit: str = "the per-well tim
         signal.signal(signal.SIGALRM, previous)
 
 
+def exception_line(exc: BaseException) -> str:
+    """``Type: first line of the message`` (160 characters at most), escaped for one line."""
+    detail = escape_line(str(exc).strip().splitlines()[0][:160]) if str(exc).strip() else ""
+    return f"{type(exc).__name__}{': ' + detail if detail else ''}"
+
+
 def failure(exc: BaseException, path: Path, *, prefix: bool = True) -> Outcome:
     """The :class:`Outcome` of an exception raised while screening ``path`` (its message
     starts with the path unless ``prefix`` is False: a caller that names the item itself,
@@ -78,10 +84,8 @@ def failure(exc: BaseException, path: Path, *, prefix: bool = True) -> Outcome:
         if prefix and not msg.startswith(where):
             msg = f"{where}: {msg}"
         return Outcome(msg)
-    detail = escape_line(str(exc).strip().splitlines()[0][:160]) if str(exc).strip() else ""
-    what = f"{type(exc).__name__}{': ' + detail if detail else ''}"
     return Outcome(
-        f"{where + ': ' if prefix else ''}internal error ({what}); the rest of the batch goes on: "
+        f"{where + ': ' if prefix else ''}internal error ({exception_line(exc)}); the rest of the batch goes on: "
         f"please report this with {INTERNAL_LOG_NAME} from the output folder",
         internal=True,
         traceback="".join(traceback.format_exception(type(exc), exc, exc.__traceback__)),
@@ -142,17 +146,24 @@ def pairs_line(rows: list[dict], out) -> str:
 
 def overview_after_batch(out_dir, locations_file=None) -> bool:
     """Write ``overview.html`` and ``overview.pdf`` after a batch and print their line.  A
-    failure, the system's or logprep's, is one ``error:`` line (an unexpected one's
-    traceback goes to :data:`INTERNAL_LOG_NAME`) and the wells' results stand.  True when
-    it failed."""
+    failure, the system's or logprep's, is one ``error:`` line that says how to remake the
+    overview (an unexpected one's traceback goes to :data:`INTERNAL_LOG_NAME`), and the
+    wells' results stand.  True when it failed."""
     from logprep.report.overview_files import write_overview
 
-    written, problem = contained_screen(lambda: write_overview(out_dir, locations_file),
-                                        Path(out_dir) / "overview.html", None)
-    if problem is None:
-        print(f"field overview {written['overview.html']} (open in a browser) and {written['overview.pdf']}")
-        return False
-    if problem.internal:
-        log_internal(Path(out_dir), "overview.html", problem.traceback)
-    print_error(problem.message)
-    return True
+    target = Path(out_dir) / "overview.html"
+    try:
+        written = write_overview(out_dir, locations_file)
+    except Exception as exc:  # noqa: BLE001 - the wells' results stand whatever fails here
+        problem = failure(exc, target)
+        remake = f"remake it with 'logprep overview {show_path(out_dir)}'"
+        if not problem.internal:
+            print_error(f"{problem.message}; {remake}")
+            return True
+        log_internal(Path(out_dir), show_path(target), problem.traceback)
+        print_error(f"{show_path(target)}: field overview not written ({exception_line(exc)}); the "
+                    f"wells' results are complete; {remake} once that is fixed (traceback in "
+                    f"{INTERNAL_LOG_NAME})")
+        return True
+    print(f"field overview {written['overview.html']} (open in a browser) and {written['overview.pdf']}")
+    return False
